@@ -1,0 +1,11 @@
+package dev.standin.engine;
+
+import dev.standin.sampling.LatentModel;
+import dev.standin.spec.Spec;
+
+/**
+ * A spec that passed every check and is ready to generate: the parsed spec, its latent model, the
+ * spec file's SHA-256, and where its files go relative to the output folder ('/'-separated).
+ */
+public record CompiledSpec(Spec spec, LatentModel model, String specSha256, String dataFile, String reportFile) {
+}

@@ -1,0 +1,159 @@
+package dev.standin.engine;
+
+import dev.standin.output.AtomicFile;
+import dev.standin.output.CellKind;
+import dev.standin.output.CsvRowWriter;
+import dev.standin.output.JsonRowWriter;
+import dev.standin.output.NumberText;
+import dev.standin.output.RowWriter;
+import dev.standin.report.Moments;
+import dev.standin.report.PairMoments;
+import dev.standin.sampling.RowSampler;
+import dev.standin.spec.ColumnSpec;
+import dev.standin.spec.OutputSpec;
+import dev.standin.spec.Spec;
+import java.io.BufferedWriter;
+import java.io.IOException;
+import java.io.OutputStream;
+import java.io.OutputStreamWriter;
+import java.io.Writer;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.security.DigestOutputStream;
+import java.security.MessageDigest;
+import java.util.ArrayList;
+import java.util.List;
+
+/**
+ * Streams a compiled spec's rows into its data file while measuring what was written, then writes
+ * the report. Memory is bounded by the number of columns, not rows.
+ */
+final class DatasetWriter {
+
+    private DatasetWriter() {
+    }
+
+    static GenerationResult write(CompiledSpec compiled, Path outputRoot) throws IOException {
+        Spec spec = compiled.spec();
+        List<ColumnSpec> columns = spec.columns();
+        int k = columns.size();
+        RowSampler sampler = new RowSampler(spec, compiled.model());
+        RowSampler.Scratch scratch = sampler.scratch();
+        int[] decimals = new int[k];
+        CellKind[] kinds = new CellKind[k];
+        List<String> names = new ArrayList<>();
+        for (int i = 0; i < k; i++) {
+            ColumnSpec c = columns.get(i);
+            names.add(c.name());
+            kinds[i] = CellKind.NUMBER;
+            decimals[i] = c instanceof ColumnSpec.Random r ? r.decimals() : 0;
+        }
+        List<String> order = compiled.model().order();
+        int[] pairColumn = new int[order.size()];
+        for (int p = 0; p < pairColumn.length; p++) {
+            pairColumn[p] = names.indexOf(order.get(p));
+        }
+        Moments[] moments = new Moments[k];
+        for (int i = 0; i < k; i++) {
+            moments[i] = new Moments();
+        }
+        PairMoments[][] pairs = new PairMoments[order.size()][order.size()];
+        for (int a = 0; a < pairs.length; a++) {
+            for (int b = 0; b < a; b++) {
+                pairs[a][b] = new PairMoments();
+            }
+        }
+
+        Path dataPath = outputRoot.resolve(compiled.dataFile());
+        Path reportPath = outputRoot.resolve(compiled.reportFile());
+        MessageDigest digest = Hashes.sha256();
+        long bytes;
+        try (AtomicFile data = AtomicFile.create(dataPath); AtomicFile report = AtomicFile.create(reportPath)) {
+            CountingStream counter;
+            try (OutputStream file = Files.newOutputStream(data.temp());
+                 Writer out = new BufferedWriter(new OutputStreamWriter(
+                         counter = new CountingStream(new DigestOutputStream(file, digest)), StandardCharsets.UTF_8), 1 << 16)) {
+                RowWriter writer = writer(spec.output(), out, names, kinds);
+                writer.begin();
+                double[] values = new double[k];
+                double[] written = new double[k];
+                boolean[] missing = new boolean[k];
+                String[] cells = new String[k];
+                for (long row = 0; row < spec.rows(); row++) {
+                    sampler.draw(row, values, missing, scratch);
+                    for (int i = 0; i < k; i++) {
+                        if (missing[i]) {
+                            cells[i] = null;
+                            moments[i].addMissing();
+                            continue;
+                        }
+                        if (sampler.isSequence(i)) {
+                            cells[i] = Long.toString(sampler.sequenceValue(i, row));
+                            written[i] = values[i];
+                        } else {
+                            cells[i] = NumberText.format(values[i], decimals[i]);
+                            written[i] = decimals[i] >= 0 ? Double.parseDouble(cells[i]) : values[i];
+                        }
+                        moments[i].add(written[i]);
+                    }
+                    for (int a = 0; a < pairColumn.length; a++) {
+                        int ca = pairColumn[a];
+                        if (missing[ca]) {
+                            continue;
+                        }
+                        for (int b = 0; b < a; b++) {
+                            int cb = pairColumn[b];
+                            if (!missing[cb]) {
+                                pairs[a][b].add(written[ca], written[cb]);
+                            }
+                        }
+                    }
+                    writer.row(cells);
+                }
+                writer.end();
+            }
+            bytes = counter.count();
+            GenerationResult.WrittenFile dataFile = new GenerationResult.WrittenFile(compiled.dataFile(), bytes,
+                    Hashes.hex(digest.digest()));
+            String json = Report.build(compiled, dataFile, moments, pairs);
+            Files.write(report.temp(), json.getBytes(StandardCharsets.UTF_8));
+            data.commit();
+            report.commit();
+            return new GenerationResult(spec.dataset(), spec.rows(), k, List.of(dataFile));
+        }
+    }
+
+    private static RowWriter writer(OutputSpec output, Writer out, List<String> names, CellKind[] kinds) {
+        return switch (output.format()) {
+            case CSV -> new CsvRowWriter(out, names, kinds, output.header(), output.delimiter(), output.nullText());
+            case JSON -> JsonRowWriter.array(out, names, kinds);
+            case JSONL -> JsonRowWriter.lines(out, names, kinds);
+        };
+    }
+
+    /** Counts the bytes passing through. */
+    private static final class CountingStream extends java.io.FilterOutputStream {
+        private long count;
+
+        CountingStream(OutputStream out) {
+            super(out);
+        }
+
+        @Override
+        public void write(int b) throws IOException {
+            out.write(b);
+            count++;
+        }
+
+        @Override
+        public void write(byte[] b, int off, int len) throws IOException {
+            out.write(b, off, len);
+            count += len;
+        }
+
+        long count() {
+            return count;
+        }
+    }
+}

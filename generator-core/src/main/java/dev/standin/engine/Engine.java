@@ -1,0 +1,116 @@
+package dev.standin.engine;
+
+import dev.standin.correlation.NortaPearson;
+import dev.standin.sampling.LatentModel;
+import dev.standin.spec.Overrides;
+import dev.standin.spec.Spec;
+import dev.standin.spec.SpecException;
+import dev.standin.spec.SpecParser;
+import dev.standin.spec.SpecProblem;
+import dev.standin.spec.Mark;
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.NoSuchFileException;
+import java.nio.file.Path;
+
+/**
+ * The one entry point the command line and the Maven plugin call: compile specs (parse and check
+ * everything, writing nothing), then generate each compiled spec into an output folder.
+ *
+ * <p>An engine holds no mutable state; it may be shared, but the plugin and the command line create
+ * one per run. Compile every spec first and generate only when all compiled, so an invalid spec
+ * leaves nothing behind.
+ */
+public final class Engine {
+
+    private final SpecParser parser;
+    private final NortaPearson norta;
+    private final boolean formatOverridden;
+
+    private Engine(Overrides overrides) {
+        this.formatOverridden = overrides != null && overrides.format() != null;
+        this.parser = SpecParser.withOverrides(overrides);
+        this.norta = new NortaPearson();
+    }
+
+    /** An engine that applies the given overrides (seed, rows, format) to every spec. */
+    public static Engine create(Overrides overrides) {
+        return new Engine(overrides);
+    }
+
+    /**
+     * Reads and checks one spec file.
+     *
+     * @param file the spec file
+     * @param displayName the name used in messages and the report, e.g. its path relative to the spec folder
+     * @param outputSubdir the folder under the output folder for its files ('/'-separated, "" for none)
+     * @throws SpecException for any problem in the spec, each located at FILE:LINE:COLUMN
+     * @throws IOException when the file cannot be read
+     */
+    public CompiledSpec compile(Path file, String displayName, String outputSubdir) throws SpecException, IOException {
+        byte[] bytes;
+        try {
+            if (Files.isDirectory(file)) {
+                throw new SpecException(SpecProblem.at(Mark.startOf(displayName), "is a directory, not a spec file"));
+            }
+            if (Files.size(file) > SpecParser.MAX_SPEC_BYTES) {
+                throw new SpecException(SpecProblem.at(Mark.startOf(displayName), "spec is " + Files.size(file)
+                        + " bytes; the limit is " + SpecParser.MAX_SPEC_BYTES + " bytes (1 MiB)"));
+            }
+            bytes = Files.readAllBytes(file);
+        } catch (NoSuchFileException e) {
+            throw new SpecException(SpecProblem.at(Mark.startOf(displayName), "no such spec file"));
+        }
+        return compile(displayName, bytes, outputSubdir);
+    }
+
+    /** Checks a spec given as bytes; see {@link #compile(Path, String, String)}. */
+    public CompiledSpec compile(String displayName, byte[] bytes, String outputSubdir) throws SpecException {
+        Spec spec = parser.parse(displayName, bytes);
+        LatentModel model = LatentModel.of(spec, norta);
+        String prefix = outputSubdir == null || outputSubdir.isEmpty() ? "" : trimSlashes(outputSubdir) + "/";
+        String dataFile = spec.output().file() != null ? (formatOverridden ? withFormat(spec) : spec.output().file()) : spec.dataset() + "." + spec.output().format().word();
+        String dataPath = prefix + dataFile;
+        int slash = dataPath.lastIndexOf('/');
+        String reportPath = (slash < 0 ? "" : dataPath.substring(0, slash + 1)) + spec.dataset() + ".report.json";
+        if (reportPath.equals(dataPath)) {
+            Mark at = spec.output().fileMark() != null ? spec.output().fileMark() : Mark.startOf(displayName);
+            throw new SpecException(SpecProblem.at(at, "output file " + dataFile + " would overwrite the report; choose another name"));
+        }
+        return new CompiledSpec(spec, model, Hashes.sha256(bytes), dataPath, reportPath);
+    }
+
+    /** The spec's file name with its extension replaced by the overriding format's. */
+    private static String withFormat(Spec spec) {
+        String f = spec.output().file();
+        String ext = "." + spec.output().format().word();
+        if (f.endsWith(ext)) {
+            return f;
+        }
+        for (String other : new String[] {".csv", ".jsonl", ".json"}) {
+            if (f.endsWith(other)) {
+                return f.substring(0, f.length() - other.length()) + ext;
+            }
+        }
+        return f;
+    }
+
+    private static String trimSlashes(String s) {
+        String t = s.replace('\\', '/');
+        while (t.startsWith("/")) {
+            t = t.substring(1);
+        }
+        while (t.endsWith("/")) {
+            t = t.substring(0, t.length() - 1);
+        }
+        return t;
+    }
+
+    /**
+     * Generates a compiled spec into the output folder: the data file and its report, each written
+     * to a temporary file and moved into place when complete.
+     */
+    public GenerationResult generate(CompiledSpec compiled, Path outputRoot) throws IOException {
+        return DatasetWriter.write(compiled, outputRoot);
+    }
+}

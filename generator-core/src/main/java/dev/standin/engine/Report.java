@@ -1,0 +1,115 @@
+package dev.standin.engine;
+
+import dev.standin.output.Json;
+import dev.standin.report.Moments;
+import dev.standin.report.PairMoments;
+import dev.standin.sampling.LatentModel;
+import dev.standin.spec.ColumnSpec;
+import dev.standin.spec.CorrelationSpec;
+import dev.standin.spec.Spec;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * The {@code <dataset>.report.json} beside each data file: what was asked, what was written and what
+ * it measures. No timestamps or absolute paths, so it is as reproducible as the data.
+ */
+final class Report {
+
+    private Report() {
+    }
+
+    static String build(CompiledSpec compiled, GenerationResult.WrittenFile data, Moments[] moments, PairMoments[][] pairs) {
+        Spec spec = compiled.spec();
+        Map<String, Object> root = new LinkedHashMap<>();
+        Map<String, Object> tool = new LinkedHashMap<>();
+        tool.put("name", ToolInfo.name());
+        tool.put("version", ToolInfo.version());
+        root.put("tool", tool);
+        root.put("dataset", spec.dataset());
+        root.put("rows", spec.rows());
+        root.put("seed", spec.seed());
+        Map<String, Object> specInfo = new LinkedHashMap<>();
+        specInfo.put("file", spec.file());
+        specInfo.put("sha256", compiled.specSha256());
+        root.put("spec", specInfo);
+        root.put("format", spec.output().format().word());
+        Map<String, Object> file = new LinkedHashMap<>();
+        file.put("path", data.path());
+        file.put("bytes", data.bytes());
+        file.put("sha256", data.sha256());
+        root.put("files", List.of(file));
+
+        List<Object> columns = new ArrayList<>();
+        for (int i = 0; i < spec.columns().size(); i++) {
+            ColumnSpec c = spec.columns().get(i);
+            Map<String, Object> col = new LinkedHashMap<>();
+            col.put("name", c.name());
+            col.put("dist", c.dist());
+            Map<String, Object> target = new LinkedHashMap<>();
+            if (c instanceof ColumnSpec.Random r) {
+                target.put("mean", r.marginal().mean());
+                target.put("sd", r.marginal().sd());
+                target.put("nulls", r.nulls());
+            } else {
+                ColumnSpec.Sequence s = (ColumnSpec.Sequence) c;
+                double n = spec.rows();
+                target.put("mean", spec.rows() == 0 ? null : s.start() + s.step() * (n - 1) / 2);
+                target.put("sd", spec.rows() < 2 ? null : Math.abs((double) s.step()) * StrictMath.sqrt(n * (n + 1) / 12));
+                target.put("nulls", 0.0);
+            }
+            col.put("target", target);
+            Moments m = moments[i];
+            Map<String, Object> achieved = new LinkedHashMap<>();
+            achieved.put("mean", m.mean());
+            achieved.put("sd", m.sd());
+            achieved.put("min", m.min());
+            achieved.put("max", m.max());
+            long total = m.count() + m.missing();
+            achieved.put("nulls", total == 0 ? null : (double) m.missing() / total);
+            col.put("achieved", achieved);
+            columns.add(col);
+        }
+        root.put("columns", columns);
+
+        CorrelationSpec cs = spec.correlation();
+        if (cs == null) {
+            root.put("correlation", null);
+        } else {
+            LatentModel model = compiled.model();
+            int k = model.order().size();
+            double[][] achieved = new double[k][k];
+            boolean covariance = cs.measure() == CorrelationSpec.Measure.COVARIANCE;
+            for (int a = 0; a < k; a++) {
+                for (int b = 0; b < a; b++) {
+                    double v = covariance ? pairs[a][b].covariance() : pairs[a][b].correlation();
+                    achieved[a][b] = v;
+                    achieved[b][a] = v;
+                }
+                achieved[a][a] = covariance ? square(moments, compiled, model.order().get(a)) : 1.0;
+            }
+            Map<String, Object> corr = new LinkedHashMap<>();
+            corr.put("measure", cs.measure().word());
+            corr.put("order", model.order());
+            corr.put("requested", cs.requested());
+            corr.put("used", model.used());
+            corr.put("latent", model.latent());
+            corr.put("achieved", achieved);
+            root.put("correlation", corr);
+        }
+        return Json.write(root);
+    }
+
+    private static double square(Moments[] moments, CompiledSpec compiled, String name) {
+        List<ColumnSpec> cols = compiled.spec().columns();
+        for (int i = 0; i < cols.size(); i++) {
+            if (cols.get(i).name().equals(name)) {
+                double sd = moments[i].sd();
+                return sd * sd;
+            }
+        }
+        return Double.NaN;
+    }
+}

@@ -1,0 +1,60 @@
+package dev.standin.random;
+
+import java.nio.charset.StandardCharsets;
+
+/**
+ * The random contract: every uniform Standin draws is a pure function of (seed, stream, row).
+ *
+ * <p>A stream is named by the column's name and a purpose ({@link Purpose#VALUE} for the value,
+ * {@link Purpose#MISSING} for the missing-value draw), hashed to 64 bits with FNV-1a (Fowler, Noll
+ * and Vo; IETF draft-eastlake-fnv) followed by the SplitMix64 finaliser (Steele, Lea and Flood,
+ * "Fast splittable pseudorandom number generators", OOPSLA 2014) so that similar names give
+ * unrelated streams. The Philox4x32-10 block for key = seed and counter = (row, stream) gives 64
+ * bits, of which the top 53 make a uniform in the open interval (0, 1): {@code (bits >>> 11) + 0.5}
+ * times 2<sup>-53</sup>. No state is carried from row to row, so any row range is generated
+ * exactly as in a whole run, and a column's values do not depend on other columns.
+ */
+public final class RandomStreams {
+
+    /** What a stream is used for; each purpose of a column has its own stream. */
+    public enum Purpose {
+        VALUE(1),
+        MISSING(2);
+
+        final long code;
+
+        Purpose(long code) {
+            this.code = code;
+        }
+    }
+
+    private static final double TWO_POW_M53 = 0x1.0p-53;
+
+    private RandomStreams() {
+    }
+
+    /** The stream identifier of a column's purpose. */
+    public static long streamId(String columnName, Purpose purpose) {
+        long h = 0xcbf29ce484222325L;
+        for (byte b : columnName.getBytes(StandardCharsets.UTF_8)) {
+            h ^= (b & 0xFF);
+            h *= 0x100000001b3L;
+        }
+        h ^= purpose.code;
+        h *= 0x100000001b3L;
+        return mix64(h);
+    }
+
+    /** The SplitMix64 finaliser (Steele, Lea and Flood 2014, "mix64"). */
+    public static long mix64(long z) {
+        z = (z ^ (z >>> 30)) * 0xbf58476d1ce4e5b9L;
+        z = (z ^ (z >>> 27)) * 0x94d049bb133111ebL;
+        return z ^ (z >>> 31);
+    }
+
+    /** The uniform in (0, 1) for (seed, stream, row). */
+    public static double uniform(long seed, long stream, long row) {
+        long bits = Philox4x32.bits64(seed, row, stream);
+        return ((bits >>> 11) + 0.5) * TWO_POW_M53;
+    }
+}

@@ -1,0 +1,16 @@
+package dev.standin.spec;
+
+/**
+ * The {@code output:} block.
+ *
+ * @param file the output file name as written, or null for {@code <dataset>.<format>}
+ * @param delimiter the CSV field separator
+ * @param nullText the CSV text of a missing value
+ */
+public record OutputSpec(OutputFormat format, String file, Mark fileMark, boolean header, char delimiter,
+                         String nullText) {
+
+    public static OutputSpec defaults() {
+        return new OutputSpec(OutputFormat.CSV, null, null, true, ',', "");
+    }
+}
