@@ -8,4 +8,9 @@ import dev.standin.spec.Spec;
  * spec file's SHA-256, and where its files go relative to the output folder ('/'-separated).
  */
 public record CompiledSpec(Spec spec, LatentModel model, String specSha256, String dataFile, String reportFile) {
+
+    /** Warnings to show the user before generating, each {@code FILE:LINE:COLUMN: warning: ...}. */
+    public java.util.List<String> warnings() {
+        return model.warnings();
+    }
 }

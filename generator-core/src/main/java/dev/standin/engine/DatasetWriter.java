@@ -120,8 +120,20 @@ final class DatasetWriter {
             Files.write(report.temp(), json.getBytes(StandardCharsets.UTF_8));
             data.commit();
             report.commit();
-            return new GenerationResult(spec.dataset(), spec.rows(), k, List.of(dataFile));
+            return new GenerationResult(spec.dataset(), spec.rows(), k, List.of(dataFile), note(compiled));
         }
+    }
+
+    private static String note(CompiledSpec compiled) {
+        var repair = compiled.model().targetRepair();
+        var latent = compiled.model().latentRepair();
+        if (repair != null && repair.repaired()) {
+            return "correlation repaired (max change " + NumberText.fixed(repair.maxChange(), 4) + ")";
+        }
+        if (latent != null && latent.repaired()) {
+            return "latent correlation repaired (max change " + NumberText.fixed(latent.maxChange(), 4) + ")";
+        }
+        return null;
     }
 
     private static RowWriter writer(OutputSpec output, Writer out, List<String> names, CellKind[] kinds) {

@@ -1,5 +1,6 @@
 package dev.standin.engine;
 
+import dev.standin.correlation.CorrelationRepair;
 import dev.standin.output.Json;
 import dev.standin.report.Moments;
 import dev.standin.report.PairMoments;
@@ -97,9 +98,44 @@ final class Report {
             corr.put("used", model.used());
             corr.put("latent", model.latent());
             corr.put("achieved", achieved);
+            corr.put("repair", repair(model.targetRepair(), model.order(), cs.repair().word()));
+            corr.put("latentRepair", model.latentRepair() == null ? null
+                    : repair(model.latentRepair(), model.order(), cs.repair().word()));
             root.put("correlation", corr);
         }
         return Json.write(root);
+    }
+
+    private static Map<String, Object> repair(CorrelationRepair.Outcome outcome, List<String> order, String policy) {
+        Map<String, Object> r = new LinkedHashMap<>();
+        r.put("policy", policy);
+        r.put("method", outcome.method());
+        r.put("iterations", outcome.iterations());
+        r.put("maxChange", outcome.maxChange());
+        r.put("frobenius", outcome.frobenius());
+        List<Object> changed = new ArrayList<>();
+        for (CorrelationRepair.Change ch : outcome.changed()) {
+            if (changed.size() == 10) {
+                break;
+            }
+            Map<String, Object> c = new LinkedHashMap<>();
+            c.put("a", order.get(ch.j()));
+            c.put("b", order.get(ch.i()));
+            c.put("from", ch.from());
+            c.put("to", ch.to());
+            changed.add(c);
+        }
+        r.put("changed", changed);
+        List<Object> completed = new ArrayList<>();
+        for (CorrelationRepair.Change ch : outcome.completed()) {
+            Map<String, Object> c = new LinkedHashMap<>();
+            c.put("a", order.get(ch.j()));
+            c.put("b", order.get(ch.i()));
+            c.put("value", ch.to());
+            completed.add(c);
+        }
+        r.put("completed", completed);
+        return r;
     }
 
     private static double square(Moments[] moments, CompiledSpec compiled, String name) {

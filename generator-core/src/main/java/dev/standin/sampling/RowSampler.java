@@ -13,8 +13,9 @@ import java.util.List;
  *
  * <p>For row n, every random column c has a uniform u<sub>c</sub> = U(seed, stream(c, value), n)
  * (see {@link RandomStreams}). A column outside the correlation block is F<sub>c</sub><sup>-1</sup>(u<sub>c</sub>).
- * For the correlated block, z<sub>c</sub> = Φ<sup>-1</sup>(u<sub>c</sub>) in canonical order, w = L z with L
- * the {@link LatentModel}'s Cholesky factor, and the value is μ + σw<sub>c</sub> for an unbounded normal
+ * For the correlated block, z<sub>q</sub> = Φ<sup>-1</sup>(u) of the stream of the column driving latent
+ * dimension q (canonical order, or pivot order for a semidefinite target), w = L z with L the
+ * {@link LatentModel}'s factor, and the value is μ + σw<sub>c</sub> for an unbounded normal
  * column and F<sub>c</sub><sup>-1</sup>(Φ(w<sub>c</sub>)) otherwise (the Gaussian copula). A
  * sequence is start + step·n. Missing values come from their own stream, so they never shift
  * other draws. Every value is thus a pure function of (seed, column, row, spec), and any row range
@@ -38,7 +39,7 @@ public final class RowSampler {
     private final long[] missingStream;
     /** Position of each column in the canonical latent order, or -1. */
     private final int[] latentIndex;
-    /** Column index of each canonical latent position. */
+    /** Column index whose value stream drives each latent dimension. */
     private final int[] latentColumn;
     private final double[][] factor;
 
@@ -55,14 +56,14 @@ public final class RowSampler {
         this.missingStream = new long[columnCount];
         this.latentIndex = new int[columnCount];
         List<String> canonical = model.canonicalOrder();
-        this.latentColumn = new int[canonical.size()];
+        int[] canonicalColumn = new int[canonical.size()];
         for (int i = 0; i < columnCount; i++) {
             ColumnSpec c = columns.get(i);
             valueStream[i] = RandomStreams.streamId(c.name(), RandomStreams.Purpose.VALUE);
             missingStream[i] = RandomStreams.streamId(c.name(), RandomStreams.Purpose.MISSING);
             latentIndex[i] = canonical.indexOf(c.name());
             if (latentIndex[i] >= 0) {
-                latentColumn[latentIndex[i]] = i;
+                canonicalColumn[latentIndex[i]] = i;
             }
             if (c instanceof ColumnSpec.Sequence s) {
                 isSequence[i] = true;
@@ -75,6 +76,11 @@ public final class RowSampler {
             }
         }
         this.factor = model.factor();
+        int[] source = model.latentSource();
+        this.latentColumn = new int[source.length];
+        for (int q = 0; q < source.length; q++) {
+            latentColumn[q] = canonicalColumn[source[q]];
+        }
     }
 
     /** Per-thread working arrays. */
@@ -126,7 +132,7 @@ public final class RowSampler {
             }
             double[] lrow = factor[p];
             double w = 0;
-            for (int q = 0; q <= p; q++) {
+            for (int q = 0; q < lrow.length; q++) {
                 w += lrow[q] * z[q];
             }
             if (m.isLinearInLatent()) {

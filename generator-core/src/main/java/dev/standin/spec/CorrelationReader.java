@@ -1,5 +1,6 @@
 package dev.standin.spec;
 
+import dev.standin.correlation.RepairPolicy;
 import dev.standin.spec.CorrelationSpec.Measure;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -20,7 +21,7 @@ import org.yaml.snakeyaml.nodes.SequenceNode;
  */
 final class CorrelationReader {
 
-    private static final List<String> KEYS = List.of("measure", "pairs", "order", "matrix");
+    private static final List<String> KEYS = List.of("measure", "pairs", "order", "matrix", "repair", "max-change");
 
     private CorrelationReader() {
     }
@@ -46,6 +47,24 @@ final class CorrelationReader {
                 return null;
             }
         }
+        RepairPolicy repair = RepairPolicy.NEAREST;
+        String repairWord = m.string("repair");
+        if (repairWord != null) {
+            repair = RepairPolicy.parse(repairWord);
+            if (repair == null) {
+                problems.add(m.valueMark("repair"), "repair must be one of " + RepairPolicy.choices() + ": " + repairWord);
+                return null;
+            }
+        }
+        double maxChange = CorrelationSpec.DEFAULT_MAX_CHANGE;
+        YamlMap.Num mc = m.number("max-change");
+        if (mc != null) {
+            if (!(mc.value() >= 0 && mc.value() <= 2)) {
+                problems.add(mc.mark(), "max-change must be a number from 0 to 2: " + mc.text());
+                return null;
+            }
+            maxChange = mc.value();
+        }
         boolean pairs = m.has("pairs");
         boolean matrix = m.has("matrix") || m.has("order");
         if (pairs == matrix) {
@@ -61,6 +80,8 @@ final class CorrelationReader {
         if (spec == null || problems.size() > before) {
             return null;
         }
+        spec = new CorrelationSpec(spec.measure(), spec.mark(), spec.order(), spec.requested(), spec.fromPairs(),
+                spec.entryMarks(), repair, maxChange);
         checkMeasure(m, spec, byName);
         return problems.size() > before ? null : spec;
     }
@@ -150,7 +171,8 @@ final class CorrelationReader {
         for (int i = 0; i < k; i++) {
             values[i][i] = diagonal(measure, byName.get(order.get(i)));
         }
-        return new CorrelationSpec(measure, m.valueMark("pairs"), order, values, true, marks);
+        return new CorrelationSpec(measure, m.valueMark("pairs"), order, values, true, marks, RepairPolicy.NEAREST,
+                CorrelationSpec.DEFAULT_MAX_CHANGE);
     }
 
     /** The diagonal implied for pairs: 1 for a correlation, the variance sd² for a covariance. */
@@ -238,7 +260,8 @@ final class CorrelationReader {
                 }
             }
         }
-        return new CorrelationSpec(measure, m.valueMark("matrix"), order, values, false, marks);
+        return new CorrelationSpec(measure, m.valueMark("matrix"), order, values, false, marks, RepairPolicy.NEAREST,
+                CorrelationSpec.DEFAULT_MAX_CHANGE);
     }
 
     private static void checkMeasure(YamlMap m, CorrelationSpec spec, Map<String, ColumnSpec> byName) {

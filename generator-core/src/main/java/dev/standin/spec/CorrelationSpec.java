@@ -1,5 +1,6 @@
 package dev.standin.spec;
 
+import dev.standin.correlation.RepairPolicy;
 import java.util.List;
 
 /**
@@ -8,9 +9,14 @@ import java.util.List;
  *
  * @param fromPairs true when written as {@code pairs:}, false for {@code order:} + {@code matrix:}
  * @param entryMarks where each off-diagonal entry was written (null where not written)
+ * @param repair what to do when the target is not positive semidefinite
+ * @param maxChange the largest change a repair may make to any specified entry before it is an error
  */
 public record CorrelationSpec(Measure measure, Mark mark, List<String> order, double[][] requested,
-                              boolean fromPairs, Mark[][] entryMarks) {
+                              boolean fromPairs, Mark[][] entryMarks, RepairPolicy repair, double maxChange) {
+
+    /** The default {@code max-change}. */
+    public static final double DEFAULT_MAX_CHANGE = 0.05;
 
     /** The correlation measures a spec may target. */
     public enum Measure {
