@@ -110,7 +110,7 @@ public final class LatentModel {
                     } else {
                         Mark at = c.entryMarks()[i][j] != null ? c.entryMarks()[i][j] : c.mark();
                         problems.add(SpecProblem.at(at, "pearson " + NumberText.shortest(usedCorrelation[i][j])
-                                + " is unattainable for " + order.get(i) + " ~ " + order.get(j)
+                                + " is unattainable for " + order.get(j) + " ~ " + order.get(i)
                                 + " with these marginals: attainable [" + NumberText.fixed(e.low(), 3) + ", "
                                 + NumberText.fixed(e.high(), 3) + "]"));
                         continue;
