@@ -192,7 +192,9 @@ public final class CorrelationRepair {
                 }
             }
         }
-        changed.sort(Comparator.comparingDouble(Change::size).reversed().thenComparingInt(Change::i).thenComparingInt(Change::j));
+        // largest first; sizes equal to 1e-12 count as ties (rounding must not reorder the list), then spec order
+        changed.sort(Comparator.comparingLong((Change c) -> -Math.round(c.size() * 1e12)).thenComparingInt(Change::j)
+                .thenComparingInt(Change::i));
         return new Outcome(result, method, iterations, max, StrictMath.sqrt(sumSq), List.copyOf(changed), List.copyOf(completed));
     }
 }

@@ -1,9 +1,5 @@
 package dev.standin.correlation;
 
-import org.apache.commons.math3.linear.Array2DRowRealMatrix;
-import org.apache.commons.math3.linear.EigenDecomposition;
-import org.apache.commons.math3.linear.RealMatrix;
-
 /** Small dense symmetric-matrix helpers on {@code double[][]}. */
 final class Matrices {
 
@@ -53,39 +49,38 @@ final class Matrices {
 
     /**
      * The projection onto {X : X symmetric, λ<sub>min</sub>(X) ≥ floor} in the Frobenius norm: V
-     * max(Λ, floor) V<sup>T</sup> from the eigendecomposition (Higham 2002, theorem 3.2 for floor 0).
+     * max(Λ, floor) V<sup>T</sup> from the eigendecomposition (Higham 2002, theorem 3.2 for floor 0),
+     * computed as A + Σ<sub>λ &lt; floor</sub> (floor − λ) v v<sup>T</sup> so that only the eigenvalues
+     * being raised cost a rank-one update.
      */
     static double[][] eigenFloor(double[][] a, double floor) {
         int n = a.length;
-        EigenDecomposition e = new EigenDecomposition(new Array2DRowRealMatrix(a, false));
-        double[] values = e.getRealEigenvalues();
-        RealMatrix v = e.getV();
-        double[][] vd = v.getData();
-        double[][] out = new double[n][n];
-        double[] lambda = new double[n];
-        for (int p = 0; p < n; p++) {
-            lambda[p] = Math.max(values[p], floor);
+        SymmetricEigen e = SymmetricEigen.of(a);
+        double[][] out = new double[n][];
+        for (int i = 0; i < n; i++) {
+            out[i] = a[i].clone();
+        }
+        for (int p = 0; p < n && e.values[p] < floor; p++) {
+            double raise = floor - e.values[p];
+            double[] v = e.vectors[p];
+            for (int i = 0; i < n; i++) {
+                double vi = raise * v[i];
+                double[] row = out[i];
+                for (int j = 0; j <= i; j++) {
+                    row[j] += vi * v[j];
+                }
+            }
         }
         for (int i = 0; i < n; i++) {
-            for (int j = 0; j <= i; j++) {
-                double s = 0;
-                for (int p = 0; p < n; p++) {
-                    s += vd[i][p] * lambda[p] * vd[j][p];
-                }
-                out[i][j] = s;
-                out[j][i] = s;
+            for (int j = 0; j < i; j++) {
+                out[j][i] = out[i][j];
             }
         }
         return out;
     }
 
-    /** The smallest eigenvalue (commons-math3 {@link EigenDecomposition}). */
+    /** The smallest eigenvalue ({@link SymmetricEigen}). */
     static double smallestEigenvalue(double[][] a) {
-        double[] values = new EigenDecomposition(new Array2DRowRealMatrix(a, false)).getRealEigenvalues();
-        double min = Double.POSITIVE_INFINITY;
-        for (double v : values) {
-            min = Math.min(min, v);
-        }
-        return min;
+        return a.length == 0 ? Double.POSITIVE_INFINITY : SymmetricEigen.of(a).values[0];
     }
 }

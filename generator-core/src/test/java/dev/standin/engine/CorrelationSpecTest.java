@@ -85,7 +85,7 @@ class CorrelationSpecTest {
     @Test
     void repairBeyondMaxChangeFailsWithBeforeAndAfter() {
         assertEquals("pumps.yaml:9:10: correlation matrix is not positive semidefinite and repair: nearest would change"
-                + " a specified pair by 0.2100, more than max-change 0.05: b ~ c 0.9 → 0.6900, a ~ b 0.9 → 0.6900,"
+                + " a specified pair by 0.2100, more than max-change 0.05: a ~ b 0.9 → 0.6900, b ~ c 0.9 → 0.6900,"
                 + " a ~ c -0.2 → -0.0478; revise these pairs, raise max-change, or set repair: fail to see the diagnosis",
                 problem("  pairs: {a ~ b: 0.9, b ~ c: 0.9, a ~ c: -0.2}\n"));
     }
