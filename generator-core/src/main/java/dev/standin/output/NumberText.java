@@ -26,6 +26,18 @@ public final class NumberText {
         new MathContext(17, RoundingMode.HALF_EVEN),
     };
 
+    private static final MathContext[] UP = {
+        new MathContext(15, RoundingMode.CEILING),
+        new MathContext(16, RoundingMode.CEILING),
+        new MathContext(17, RoundingMode.CEILING),
+    };
+
+    private static final MathContext[] DOWN = {
+        new MathContext(15, RoundingMode.FLOOR),
+        new MathContext(16, RoundingMode.FLOOR),
+        new MathContext(17, RoundingMode.FLOOR),
+    };
+
     private NumberText() {
     }
 
@@ -46,9 +58,17 @@ public final class NumberText {
         }
         BigDecimal exact = new BigDecimal(value);
         BigDecimal rounded = exact;
-        for (MathContext mc : DIGITS) {
-            rounded = exact.round(mc);
+        for (int i = 0; i < DIGITS.length; i++) {
+            rounded = exact.round(DIGITS[i]);
             if (rounded.doubleValue() == value) {
+                break;
+            }
+            // at a power of two the decimals that read back are lopsided around the value (the gap
+            // below is half the gap above), so the nearest decimal can miss while the nearest one on
+            // the other side reads back
+            BigDecimal other = exact.round(rounded.compareTo(exact) < 0 ? UP[i] : DOWN[i]);
+            if (other.doubleValue() == value) {
+                rounded = other;
                 break;
             }
         }
