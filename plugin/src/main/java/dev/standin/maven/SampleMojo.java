@@ -1,0 +1,93 @@
+package dev.standin.maven;
+
+import java.io.File;
+import java.nio.file.Path;
+import java.nio.file.Paths;
+import org.apache.maven.plugin.AbstractMojo;
+import org.apache.maven.plugin.MojoExecutionException;
+import org.apache.maven.plugin.MojoFailureException;
+import org.apache.maven.plugins.annotations.Mojo;
+import org.apache.maven.plugins.annotations.Parameter;
+
+/**
+ * Generates the named spec files without needing a project: handy to try a spec out. Each spec is
+ * named in messages as given; its data file and report go straight into the output folder (by
+ * default the folder Maven was started in). All specs are checked before anything is written.
+ *
+ * <p>Usage, in any folder:
+ * <pre>
+ * mvn dev.standin:standin-maven-plugin:0.1.0-SNAPSHOT:sample -Dstandin.spec=ferry-crossings.yaml
+ * mvn dev.standin:standin-maven-plugin:0.1.0-SNAPSHOT:sample -Dstandin.spec=a.yaml,specs/b.yml \
+ *     -Dstandin.outputDirectory=out -Dstandin.rows=20
+ * </pre>
+ * or bound in a pom:
+ * <pre>
+ * &lt;plugin&gt;
+ *   &lt;groupId&gt;dev.standin&lt;/groupId&gt;
+ *   &lt;artifactId&gt;standin-maven-plugin&lt;/artifactId&gt;
+ *   &lt;version&gt;0.1.0-SNAPSHOT&lt;/version&gt;
+ *   &lt;configuration&gt;
+ *     &lt;spec&gt;docs/ferry-crossings.yaml&lt;/spec&gt;
+ *     &lt;rows&gt;50&lt;/rows&gt;
+ *   &lt;/configuration&gt;
+ * &lt;/plugin&gt;
+ * </pre>
+ *
+ * @since 0.1.0
+ */
+@Mojo(name = "sample", requiresProject = false, threadSafe = true)
+public final class SampleMojo extends AbstractMojo {
+
+    /**
+     * The spec files to generate, comma-separated, relative to the folder Maven was started in (or
+     * absolute).
+     *
+     * @since 0.1.0
+     */
+    @Parameter(property = "standin.spec")
+    private String spec;
+
+    /**
+     * The folder the data files and reports are written to; by default the folder Maven was started
+     * in.
+     *
+     * @since 0.1.0
+     */
+    @Parameter(property = "standin.outputDirectory")
+    private File outputDirectory;
+
+    /**
+     * Replaces the {@code seed} of every spec: a 64-bit integer.
+     *
+     * @since 0.1.0
+     */
+    @Parameter(property = "standin.seed")
+    private String seed;
+
+    /**
+     * Replaces the {@code rows} of every spec: a whole number from 0 to 2^40.
+     *
+     * @since 0.1.0
+     */
+    @Parameter(property = "standin.rows")
+    private String rows;
+
+    /**
+     * Replaces the output format of every spec: {@code csv}, {@code json} or {@code jsonl}.
+     *
+     * @since 0.1.0
+     */
+    @Parameter(property = "standin.format")
+    private String format;
+
+    /** The folder Maven was started in (the session's execution root). */
+    @Parameter(defaultValue = "${session.executionRootDirectory}", readonly = true)
+    private File startDirectory;
+
+    @Override
+    public void execute() throws MojoExecutionException, MojoFailureException {
+        Path base = startDirectory != null ? startDirectory.toPath() : Paths.get(System.getProperty("user.dir"));
+        PluginBridge.withLog(getLog()).sampleGoal(spec, base.toAbsolutePath(),
+                outputDirectory == null ? null : outputDirectory.toPath(), seed, rows, format);
+    }
+}
