@@ -5,8 +5,12 @@ import java.nio.ByteBuffer;
 import java.nio.charset.CharacterCodingException;
 import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
+import java.util.ArrayDeque;
 import java.util.ArrayList;
+import java.util.Collections;
+import java.util.Deque;
 import java.util.HashSet;
+import java.util.IdentityHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
@@ -16,9 +20,11 @@ import org.yaml.snakeyaml.Yaml;
 import org.yaml.snakeyaml.constructor.SafeConstructor;
 import org.yaml.snakeyaml.error.MarkedYAMLException;
 import org.yaml.snakeyaml.error.YAMLException;
+import org.yaml.snakeyaml.nodes.MappingNode;
 import org.yaml.snakeyaml.nodes.Node;
 import org.yaml.snakeyaml.nodes.NodeTuple;
 import org.yaml.snakeyaml.nodes.ScalarNode;
+import org.yaml.snakeyaml.nodes.SequenceNode;
 
 /**
  * Parses spec format v1 from YAML into a checked {@link Spec}.
@@ -74,6 +80,7 @@ public final class SpecParser {
             throw new SpecException(SpecProblem.at(Mark.startOf(file), "spec is not valid UTF-8 text"));
         }
         Node root = compose(file, text);
+        checkTags(file, root);
         Problems problems = new Problems();
         Spec spec = readSpec(file, root, problems);
         problems.throwIfAny();
@@ -101,6 +108,39 @@ public final class SpecParser {
         } catch (YAMLException e) {
             throw new SpecException(SpecProblem.at(Mark.startOf(file), "not valid YAML: " + oneLine(e.getMessage())));
         }
+    }
+
+    /**
+     * Rejects a tag outside YAML's standard ones on any node, wherever it stands, with one problem
+     * per tagged node in document order. (snakeyaml itself rejects global tags such as
+     * {@code !!java.lang.Object}; this catches local tags such as {@code !x} and non-scalar standard
+     * tags such as {@code !!binary}, which the typed readers would otherwise read as plain text.)
+     */
+    private static void checkTags(String file, Node root) throws SpecException {
+        Problems problems = new Problems();
+        Set<Node> seen = Collections.newSetFromMap(new IdentityHashMap<>());
+        Deque<Node> todo = new ArrayDeque<>();
+        todo.push(root);
+        while (!todo.isEmpty()) {
+            Node n = todo.pop();
+            if (!seen.add(n)) {
+                continue;
+            }
+            YamlMap.checkTag(file, problems, n);
+            if (n instanceof MappingNode m) {
+                List<NodeTuple> tuples = m.getValue();
+                for (int i = tuples.size() - 1; i >= 0; i--) {
+                    todo.push(tuples.get(i).getValueNode());
+                    todo.push(tuples.get(i).getKeyNode());
+                }
+            } else if (n instanceof SequenceNode q) {
+                List<Node> items = q.getValue();
+                for (int i = items.size() - 1; i >= 0; i--) {
+                    todo.push(items.get(i));
+                }
+            }
+        }
+        problems.throwIfAny();
     }
 
     private static String oneLine(String s) {
