@@ -1,5 +1,8 @@
 package dev.standin.engine;
 
+import dev.standin.marginal.DiscreteTable;
+import dev.standin.marginal.Marginal;
+import dev.standin.marginal.ValueKind;
 import dev.standin.output.AtomicFile;
 import dev.standin.output.CellKind;
 import dev.standin.output.CsvRowWriter;
@@ -8,6 +11,8 @@ import dev.standin.output.NumberText;
 import dev.standin.output.RowWriter;
 import dev.standin.report.Moments;
 import dev.standin.report.PairMoments;
+import dev.standin.report.RowSample;
+import dev.standin.spec.CorrelationSpec;
 import dev.standin.sampling.RowSampler;
 import dev.standin.spec.ColumnSpec;
 import dev.standin.spec.OutputSpec;
@@ -21,6 +26,8 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.security.DigestOutputStream;
+import java.time.Instant;
+import java.time.LocalDate;
 import java.security.MessageDigest;
 import java.util.ArrayList;
 import java.util.List;
@@ -42,12 +49,24 @@ final class DatasetWriter {
         RowSampler.Scratch scratch = sampler.scratch();
         int[] decimals = new int[k];
         CellKind[] kinds = new CellKind[k];
+        ValueKind[] valueKinds = new ValueKind[k];
+        Marginal[] marginals = new Marginal[k];
+        long[][] levelCounts = new long[k][];
         List<String> names = new ArrayList<>();
         for (int i = 0; i < k; i++) {
             ColumnSpec c = columns.get(i);
             names.add(c.name());
-            kinds[i] = CellKind.NUMBER;
             decimals[i] = c instanceof ColumnSpec.Random r ? r.decimals() : 0;
+            valueKinds[i] = c instanceof ColumnSpec.Random r ? r.marginal().valueKind() : ValueKind.INTEGER;
+            marginals[i] = c instanceof ColumnSpec.Random r ? r.marginal() : null;
+            kinds[i] = switch (valueKinds[i]) {
+                case NUMBER, INTEGER -> CellKind.NUMBER;
+                case BOOLEAN -> CellKind.BOOLEAN;
+                case LABEL, DATE, TIMESTAMP -> CellKind.TEXT;
+            };
+            if (valueKinds[i] == ValueKind.LABEL || valueKinds[i] == ValueKind.BOOLEAN) {
+                levelCounts[i] = new long[valueKinds[i] == ValueKind.BOOLEAN ? 2 : levelsOf(marginals[i])];
+            }
         }
         List<String> order = compiled.model().order();
         int[] pairColumn = new int[order.size()];
@@ -65,6 +84,10 @@ final class DatasetWriter {
             }
         }
 
+        CorrelationSpec.Measure measure = spec.correlation() == null ? null : spec.correlation().measure();
+        boolean ranks = measure == CorrelationSpec.Measure.SPEARMAN || measure == CorrelationSpec.Measure.KENDALL;
+        RowSample sample = ranks ? new RowSample(spec.seed(), RowSample.DEFAULT_SIZE) : null;
+        double[] sampled = new double[pairColumn.length];
         Path dataPath = outputRoot.resolve(compiled.dataFile());
         Path reportPath = outputRoot.resolve(compiled.reportFile());
         MessageDigest digest = Hashes.sha256();
@@ -92,10 +115,20 @@ final class DatasetWriter {
                             cells[i] = Long.toString(sampler.sequenceValue(i, row));
                             written[i] = values[i];
                         } else {
-                            cells[i] = NumberText.format(values[i], decimals[i]);
-                            written[i] = decimals[i] >= 0 ? Double.parseDouble(cells[i]) : values[i];
+                            cells[i] = text(valueKinds[i], marginals[i], values[i], decimals[i]);
+                            written[i] = valueKinds[i] == ValueKind.NUMBER && decimals[i] >= 0
+                                    ? Double.parseDouble(cells[i]) : values[i];
+                            if (levelCounts[i] != null) {
+                                levelCounts[i][(int) values[i]]++;
+                            }
                         }
                         moments[i].add(written[i]);
+                    }
+                    if (sample != null) {
+                        for (int a = 0; a < pairColumn.length; a++) {
+                            sampled[a] = missing[pairColumn[a]] ? Double.NaN : written[pairColumn[a]];
+                        }
+                        sample.offer(row, sampled);
                     }
                     for (int a = 0; a < pairColumn.length; a++) {
                         int ca = pairColumn[a];
@@ -116,12 +149,28 @@ final class DatasetWriter {
             bytes = counter.count();
             GenerationResult.WrittenFile dataFile = new GenerationResult.WrittenFile(compiled.dataFile(), bytes,
                     Hashes.hex(digest.digest()));
-            String json = Report.build(compiled, dataFile, moments, pairs);
+            String json = Report.build(compiled, dataFile, moments, pairs, levelCounts, sample);
             Files.write(report.temp(), json.getBytes(StandardCharsets.UTF_8));
             data.commit();
             report.commit();
             return new GenerationResult(spec.dataset(), spec.rows(), k, List.of(dataFile), note(compiled));
         }
+    }
+
+    /** The written text of a value of the given kind. */
+    static String text(ValueKind kind, Marginal m, double value, int decimals) {
+        return switch (kind) {
+            case NUMBER -> NumberText.format(value, decimals);
+            case INTEGER -> Long.toString((long) value);
+            case BOOLEAN -> value == 1.0 ? "true" : "false";
+            case LABEL -> m.label((int) value);
+            case DATE -> LocalDate.ofEpochDay((long) value).toString();
+            case TIMESTAMP -> Instant.ofEpochSecond((long) value).toString();
+        };
+    }
+
+    private static int levelsOf(Marginal m) {
+        return (int) (((DiscreteTable) m).highest() + 1);
     }
 
     private static String note(CompiledSpec compiled) {

@@ -1,9 +1,13 @@
 package dev.standin.engine;
 
 import dev.standin.correlation.CorrelationRepair;
+import dev.standin.marginal.DiscreteTable;
+import dev.standin.marginal.ValueKind;
 import dev.standin.output.Json;
 import dev.standin.report.Moments;
 import dev.standin.report.PairMoments;
+import dev.standin.report.RankStatistics;
+import dev.standin.report.RowSample;
 import dev.standin.sampling.LatentModel;
 import dev.standin.spec.ColumnSpec;
 import dev.standin.spec.CorrelationSpec;
@@ -22,7 +26,8 @@ final class Report {
     private Report() {
     }
 
-    static String build(CompiledSpec compiled, GenerationResult.WrittenFile data, Moments[] moments, PairMoments[][] pairs) {
+    static String build(CompiledSpec compiled, GenerationResult.WrittenFile data, Moments[] moments, PairMoments[][] pairs,
+                        long[][] levelCounts, RowSample sample) {
         Spec spec = compiled.spec();
         Map<String, Object> root = new LinkedHashMap<>();
         Map<String, Object> tool = new LinkedHashMap<>();
@@ -51,9 +56,28 @@ final class Report {
             col.put("dist", c.dist());
             Map<String, Object> target = new LinkedHashMap<>();
             if (c instanceof ColumnSpec.Random r) {
-                target.put("mean", r.marginal().mean());
-                target.put("sd", r.marginal().sd());
+                ValueKind kind = r.marginal().valueKind();
+                if (kind == ValueKind.DATE || kind == ValueKind.TIMESTAMP) {
+                    col.put("unit", kind == ValueKind.DATE ? "days since 1970-01-01" : "seconds since 1970-01-01T00:00:00Z");
+                }
+                if (kind != ValueKind.LABEL) {
+                    target.put("mean", r.marginal().mean());
+                    target.put("sd", r.marginal().sd());
+                }
                 target.put("nulls", r.nulls());
+                if (levelCounts[i] != null) {
+                    DiscreteTable table = (DiscreteTable) r.marginal();
+                    List<Object> levels = new ArrayList<>();
+                    long present = moments[i].count();
+                    for (int level = 0; level < levelCounts[i].length; level++) {
+                        Map<String, Object> l = new LinkedHashMap<>();
+                        l.put("label", r.marginal().label(level));
+                        l.put("target", table.probability(level));
+                        l.put("achieved", present == 0 ? null : (double) levelCounts[i][level] / present);
+                        levels.add(l);
+                    }
+                    col.put("levels", levels);
+                }
             } else {
                 ColumnSpec.Sequence s = (ColumnSpec.Sequence) c;
                 double n = spec.rows();
@@ -64,10 +88,13 @@ final class Report {
             col.put("target", target);
             Moments m = moments[i];
             Map<String, Object> achieved = new LinkedHashMap<>();
-            achieved.put("mean", m.mean());
-            achieved.put("sd", m.sd());
-            achieved.put("min", m.min());
-            achieved.put("max", m.max());
+            boolean label = c instanceof ColumnSpec.Random r && r.marginal().valueKind() == ValueKind.LABEL;
+            if (!label) {
+                achieved.put("mean", m.mean());
+                achieved.put("sd", m.sd());
+                achieved.put("min", m.min());
+                achieved.put("max", m.max());
+            }
             long total = m.count() + m.missing();
             achieved.put("nulls", total == 0 ? null : (double) m.missing() / total);
             col.put("achieved", achieved);
@@ -83,9 +110,14 @@ final class Report {
             int k = model.order().size();
             double[][] achieved = new double[k][k];
             boolean covariance = cs.measure() == CorrelationSpec.Measure.COVARIANCE;
+            List<double[]> rows = sample == null ? null : sample.rows();
             for (int a = 0; a < k; a++) {
                 for (int b = 0; b < a; b++) {
-                    double v = covariance ? pairs[a][b].covariance() : pairs[a][b].correlation();
+                    double v = switch (cs.measure()) {
+                        case COVARIANCE -> pairs[a][b].covariance();
+                        case PEARSON, LATENT -> pairs[a][b].correlation();
+                        case SPEARMAN, KENDALL -> RankStatistics.correlation(cs.measure(), rows, a, b);
+                    };
                     achieved[a][b] = v;
                     achieved[b][a] = v;
                 }
@@ -98,6 +130,7 @@ final class Report {
             corr.put("used", model.used());
             corr.put("latent", model.latent());
             corr.put("achieved", achieved);
+            corr.put("achievedFrom", sample == null ? "all rows" : "seeded sample of " + sample.size() + " rows");
             corr.put("repair", repair(model.targetRepair(), model.order(), cs.repair().word()));
             corr.put("latentRepair", model.latentRepair() == null ? null
                     : repair(model.latentRepair(), model.order(), cs.repair().word()));

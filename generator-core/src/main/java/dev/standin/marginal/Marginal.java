@@ -32,4 +32,47 @@ public interface Marginal {
     default boolean isLinearInLatent() {
         return false;
     }
+
+    /**
+     * The quantile for an upper-tail probability q = 1 − p, for q in (0, 1): families that can do
+     * better than {@code quantile(1 − q)} (which loses every digit of q below 1e-16) override it.
+     */
+    default double upperQuantile(double q) {
+        return quantile(Math.min(1.0 - q, 1.0 - 0x1.0p-53));
+    }
+
+    /**
+     * The value for a standard normal latent z: F<sup>-1</sup>(Φ(z)), computed through the upper
+     * tail for z &gt; 0 so that large latents keep their precision. This is the Gaussian copula's map.
+     */
+    default double fromLatent(double z) {
+        if (z <= 0) {
+            return quantile(Math.max(StandardNormal.cdf(z), Double.MIN_NORMAL));
+        }
+        return upperQuantile(Math.max(StandardNormal.cdf(-z), Double.MIN_NORMAL));
+    }
+
+    /** How values are written; decimal numbers unless the family says otherwise. */
+    default ValueKind valueKind() {
+        return ValueKind.NUMBER;
+    }
+
+    /** True for distributions on whole numbers (counts, flags, levels, days, seconds). */
+    default boolean isDiscrete() {
+        return false;
+    }
+
+    /**
+     * The mid-distribution function G(x) = (F(x) + F(x⁻))/2, the population counterpart of mid-ranks:
+     * Spearman's ρ of two variables is the Pearson correlation of their G-values (W. Kruskal,
+     * "Ordinal measures of association", JASA 53 (1958) 814-861). Equals F for continuous marginals.
+     */
+    default double grade(double x) {
+        return cdf(x);
+    }
+
+    /** The label of a level, for {@link ValueKind#LABEL} marginals. */
+    default String label(int level) {
+        throw new UnsupportedOperationException(family() + " has no labels");
+    }
 }

@@ -72,12 +72,12 @@ public final class NormalMarginal implements Marginal {
         Checks.finite("mean", mean);
         Checks.positive("sd", sd);
         if (!(lower < upper)) {
-            throw new IllegalArgumentException("min must be < max: " + lower + " >= " + upper);
+            throw new IllegalArgumentException("min must be < max: " + Checks.text(lower) + " >= " + Checks.text(upper));
         }
         NormalMarginal m = new NormalMarginal(mean, sd, lower, upper);
         if (!(m.pHi - m.pLo > 1e-300)) {
             throw new IllegalArgumentException("min and max leave no probability to sample: the normal mass in ["
-                    + lower + ", " + upper + "] is below 1e-300");
+                    + Checks.text(lower) + ", " + Checks.text(upper) + "] is below 1e-300");
         }
         return m;
     }
@@ -108,10 +108,30 @@ public final class NormalMarginal implements Marginal {
         if (!truncated) {
             return mu + sigma * NormalQuantile.of(p);
         }
-        double z = NormalQuantile.of(pLo + p * (pHi - pLo));
-        double x = upperTail ? mu - sigma * z : mu + sigma * z;
+        // in the upper tail, −X has bounds −upper < −lower below its mean: X's p-quantile is −(−X)'s (1 − p)-quantile
+        double x = upperTail ? mu - sigma * NormalQuantile.of(pHi - p * (pHi - pLo))
+                : mu + sigma * NormalQuantile.of(pLo + p * (pHi - pLo));
         // rounding in the last bit can step over a bound; the bounds are part of the support
         return Math.min(Math.max(x, lower), upper);
+    }
+
+    @Override
+    public double upperQuantile(double q) {
+        if (!truncated) {
+            return mu - sigma * NormalQuantile.of(q);
+        }
+        double x;
+        if (upperTail) {
+            x = mu - sigma * NormalQuantile.of(pLo + q * (pHi - pLo));
+        } else {
+            x = mu - sigma * NormalQuantile.of((1.0 - pHi) + q * (pHi - pLo));
+        }
+        return Math.min(Math.max(x, lower), upper);
+    }
+
+    @Override
+    public double fromLatent(double z) {
+        return truncated ? Marginal.super.fromLatent(z) : mu + sigma * z;
     }
 
     @Override

@@ -17,10 +17,10 @@ public final class UniformMarginal implements Marginal {
         Checks.finite("min", min);
         Checks.finite("max", max);
         if (!(min < max)) {
-            throw new IllegalArgumentException("min must be < max: " + min + " >= " + max);
+            throw new IllegalArgumentException("min must be < max: " + Checks.text(min) + " >= " + Checks.text(max));
         }
         if (!Double.isFinite(max - min)) {
-            throw new IllegalArgumentException("max - min must be finite: " + max + " - " + min);
+            throw new IllegalArgumentException("max - min must be finite: " + Checks.text(max) + " - " + Checks.text(min));
         }
         return new UniformMarginal(min, max);
     }

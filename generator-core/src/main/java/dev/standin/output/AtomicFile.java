@@ -5,6 +5,8 @@ import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
+import java.nio.file.attribute.PosixFileAttributeView;
+import java.nio.file.attribute.PosixFilePermissions;
 
 /**
  * A file written under a temporary name in its final directory and moved into place atomically
@@ -27,6 +29,10 @@ public final class AtomicFile implements AutoCloseable {
         Path dir = target.toAbsolutePath().getParent();
         Files.createDirectories(dir);
         Path temp = Files.createTempFile(dir, "." + target.getFileName() + ".", ".partial");
+        // createTempFile makes an owner-only file; fixtures are ordinary files that others may read
+        if (Files.getFileStore(temp).supportsFileAttributeView(PosixFileAttributeView.class)) {
+            Files.setPosixFilePermissions(temp, PosixFilePermissions.fromString("rw-r--r--"));
+        }
         return new AtomicFile(target, temp);
     }
 

@@ -5,8 +5,9 @@ import dev.standin.correlation.CorrelationRepair;
 import dev.standin.correlation.Definiteness;
 import dev.standin.correlation.NortaPearson;
 import dev.standin.correlation.PivotedCholesky;
-import dev.standin.correlation.RepairPolicy;
+import dev.standin.correlation.RankTargets;
 import dev.standin.marginal.Marginal;
+import dev.standin.marginal.ValueKind;
 import dev.standin.output.NumberText;
 import dev.standin.spec.ColumnSpec;
 import dev.standin.spec.CorrelationSpec;
@@ -72,6 +73,11 @@ public final class LatentModel {
      *     a repair exceeds {@code max-change}, or a target is unattainable for its marginals
      */
     public static LatentModel of(Spec spec, NortaPearson norta) throws SpecException {
+        return of(spec, norta, new RankTargets(norta));
+    }
+
+    /** As {@link #of(Spec, NortaPearson)} with a shared rank-target solver. */
+    public static LatentModel of(Spec spec, NortaPearson norta, RankTargets ranks) throws SpecException {
         CorrelationSpec c = spec.correlation();
         if (c == null) {
             return independent();
@@ -102,17 +108,18 @@ public final class LatentModel {
             for (int j = 0; j < i; j++) {
                 double r;
                 try {
-                    r = norta.latentFor(marginals[i], marginals[j], usedCorrelation[i][j]);
+                    r = latentFor(c.measure(), marginals[i], marginals[j], usedCorrelation[i][j], norta, ranks);
                 } catch (NortaPearson.UnattainableException e) {
                     if (Double.isNaN(c.requested()[i][j])) {
                         // a completed (free) pair: take the nearest attainable latent
                         r = usedCorrelation[i][j] < e.low() ? -1.0 : 1.0;
                     } else {
                         Mark at = c.entryMarks()[i][j] != null ? c.entryMarks()[i][j] : c.mark();
-                        problems.add(SpecProblem.at(at, "pearson " + NumberText.shortest(usedCorrelation[i][j])
+                        problems.add(SpecProblem.at(at, c.measure().word() + " " + NumberText.shortest(usedCorrelation[i][j])
                                 + " is unattainable for " + order.get(j) + " ~ " + order.get(i)
                                 + " with these marginals: attainable [" + NumberText.fixed(e.low(), 3) + ", "
-                                + NumberText.fixed(e.high(), 3) + "]"));
+                                + NumberText.fixed(e.high(), 3) + "]" + (c.measure() == CorrelationSpec.Measure.PEARSON
+                                ? "; consider measure: spearman" : "")));
                         continue;
                     }
                 }
@@ -168,6 +175,24 @@ public final class LatentModel {
         }
         return new LatentModel(List.copyOf(order), used, latent, List.copyOf(canonical), factor, source,
                 targetRepair, latentRepair, List.copyOf(warnings));
+    }
+
+    /**
+     * The latent correlation for one pair's target in the spec's measure. Pairs with a categorical
+     * column are defined on the latent scale under every measure (levels have no order of their own
+     * beyond the order written, so a value correlation would depend on that arbitrary order).
+     */
+    static double latentFor(CorrelationSpec.Measure measure, Marginal a, Marginal b, double target, NortaPearson norta,
+                            RankTargets ranks) throws NortaPearson.UnattainableException {
+        if (a.valueKind() == ValueKind.LABEL || b.valueKind() == ValueKind.LABEL) {
+            return target;
+        }
+        return switch (measure) {
+            case LATENT -> target;
+            case COVARIANCE, PEARSON -> norta.latentFor(a, b, target);
+            case SPEARMAN -> ranks.spearmanLatent(a, b, target);
+            case KENDALL -> ranks.kendallLatent(a, b, target);
+        };
     }
 
     private static CorrelationRepair.Outcome repair(double[][] target, CorrelationSpec c, List<String> order, String what,

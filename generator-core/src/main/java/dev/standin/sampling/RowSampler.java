@@ -1,7 +1,6 @@
 package dev.standin.sampling;
 
 import dev.standin.marginal.Marginal;
-import dev.standin.marginal.StandardNormal;
 import dev.standin.random.NormalQuantile;
 import dev.standin.random.RandomStreams;
 import dev.standin.spec.ColumnSpec;
@@ -16,7 +15,8 @@ import java.util.List;
  * For the correlated block, z<sub>q</sub> = Φ<sup>-1</sup>(u) of the stream of the column driving latent
  * dimension q (canonical order, or pivot order for a semidefinite target), w = L z with L the
  * {@link LatentModel}'s factor, and the value is μ + σw<sub>c</sub> for an unbounded normal
- * column and F<sub>c</sub><sup>-1</sup>(Φ(w<sub>c</sub>)) otherwise (the Gaussian copula). A
+ * column and F<sub>c</sub><sup>-1</sup>(Φ(w<sub>c</sub>)) otherwise (the Gaussian copula, through
+ * {@link Marginal#fromLatent(double)}, which keeps the upper tail's precision). A
  * sequence is start + step·n. Missing values come from their own stream, so they never shift
  * other draws. Every value is thus a pure function of (seed, column, row, spec), and any row range
  * is drawn exactly as in a whole run.
@@ -24,9 +24,6 @@ import java.util.List;
  * <p>Instances are immutable and may be shared by threads; each thread needs its own {@link Scratch}.
  */
 public final class RowSampler {
-
-    private static final double P_MIN = Double.MIN_NORMAL;
-    private static final double P_MAX = 1.0 - 0x1.0p-53;
 
     private final long seed;
     private final int columnCount;
@@ -135,12 +132,7 @@ public final class RowSampler {
             for (int q = 0; q < lrow.length; q++) {
                 w += lrow[q] * z[q];
             }
-            if (m.isLinearInLatent()) {
-                values[i] = m.mean() + m.sd() * w;
-            } else {
-                double u = StandardNormal.cdf(w);
-                values[i] = m.quantile(Math.min(Math.max(u, P_MIN), P_MAX));
-            }
+            values[i] = m.isLinearInLatent() ? m.mean() + m.sd() * w : m.fromLatent(w);
         }
     }
 }

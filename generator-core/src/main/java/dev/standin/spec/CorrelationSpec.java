@@ -20,8 +20,14 @@ public record CorrelationSpec(Measure measure, Mark mark, List<String> order, do
 
     /** The correlation measures a spec may target. */
     public enum Measure {
-        /** Product-moment correlation of the written values. */
+        /** Product-moment correlation of the written values, matched by NORTA. */
         PEARSON("pearson"),
+        /** Spearman's rank correlation of the written values (mid-ranks for ties). */
+        SPEARMAN("spearman"),
+        /** Kendall's τ<sub>b</sub> of the written values. */
+        KENDALL("kendall"),
+        /** The correlation of the normal latents themselves (the Gaussian copula's parameter). */
+        LATENT("latent"),
         /** Covariance of the written values (normal columns only). */
         COVARIANCE("covariance");
 
@@ -36,7 +42,7 @@ public record CorrelationSpec(Measure measure, Mark mark, List<String> order, do
         }
 
         public static String choices() {
-            return "pearson, covariance";
+            return "pearson, spearman, kendall, latent, covariance";
         }
     }
 

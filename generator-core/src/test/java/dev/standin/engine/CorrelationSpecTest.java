@@ -124,6 +124,6 @@ class CorrelationSpecTest {
                 () -> engine.compile("pumps.yaml", spec.getBytes(StandardCharsets.UTF_8), ""));
         // Corr(Z, Φ(Z)) = √(3/π) = 0.977 (closed form: E[ZΦ(Z)] = 1/(2√π), sd(Φ(Z)) = 1/√12)
         assertEquals("pumps.yaml:8:25: pearson 0.99 is unattainable for flow ~ valve with these marginals:"
-                + " attainable [-0.977, 0.977]", e.problems().get(0).toString());
+                + " attainable [-0.977, 0.977]; consider measure: spearman", e.problems().get(0).toString());
     }
 }

@@ -1,0 +1,62 @@
+package dev.standin.report;
+
+import dev.standin.random.RandomStreams;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.PriorityQueue;
+
+/**
+ * A fixed-size, seeded sample of rows for statistics that need whole columns (ranks): bottom-k
+ * sampling, which keeps the k rows with the smallest priority hash(seed, row) (E. Cohen and H.
+ * Kaplan, "Summarizing data using bottom-k sketches", PODC 2007). Priorities depend only on the
+ * row index, so the sample is the same whatever order or partition the rows arrive in, and memory
+ * is bounded by k whatever the row count.
+ */
+public final class RowSample {
+
+    /** The default sample size. */
+    public static final int DEFAULT_SIZE = 10_000;
+
+    private final long seed;
+    private final int capacity;
+    private final PriorityQueue<Entry> heap;
+
+    private record Entry(long priority, long row, double[] values) {
+    }
+
+    public RowSample(long seed, int capacity) {
+        this.seed = RandomStreams.mix64(seed ^ 0x5EED5A4B1E5L);
+        this.capacity = capacity;
+        this.heap = new PriorityQueue<>(capacity + 1, (a, b) -> Long.compareUnsigned(b.priority, a.priority) != 0
+                ? Long.compareUnsigned(b.priority, a.priority) : Long.compare(b.row, a.row));
+    }
+
+    /** Offers a row; values use NaN for missing. The array is copied only when kept. */
+    public void offer(long row, double[] values) {
+        long priority = RandomStreams.mix64(seed + row * 0x9E3779B97F4A7C15L);
+        if (heap.size() == capacity) {
+            Entry top = heap.peek();
+            if (Long.compareUnsigned(priority, top.priority) > 0
+                    || priority == top.priority && row > top.row) {
+                return;
+            }
+            heap.poll();
+        }
+        heap.add(new Entry(priority, row, values.clone()));
+    }
+
+    /** The kept rows' values, in row order. */
+    public List<double[]> rows() {
+        List<Entry> all = new ArrayList<>(heap);
+        all.sort((a, b) -> Long.compare(a.row, b.row));
+        List<double[]> out = new ArrayList<>(all.size());
+        for (Entry e : all) {
+            out.add(e.values);
+        }
+        return out;
+    }
+
+    public int size() {
+        return heap.size();
+    }
+}
