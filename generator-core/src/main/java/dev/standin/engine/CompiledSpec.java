@@ -13,4 +13,13 @@ public record CompiledSpec(Spec spec, LatentModel model, String specSha256, Stri
     public java.util.List<String> warnings() {
         return model.warnings();
     }
+
+    /**
+     * Every file this spec writes, relative to the output folder ('/'-separated), the data file first:
+     * what a build tool needs to track, clean up or check for clashes. Keep in step with what
+     * {@link Engine#generate} writes.
+     */
+    public java.util.List<String> outputFiles() {
+        return java.util.List.of(dataFile, reportFile);
+    }
 }

@@ -41,7 +41,11 @@ final class DatasetWriter {
     private DatasetWriter() {
     }
 
-    static GenerationResult write(CompiledSpec compiled, Path outputRoot) throws IOException {
+    /** How many rows pass between two calls of the progress callback. */
+    static final long PROGRESS_EVERY = 1L << 16;
+
+    static GenerationResult write(CompiledSpec compiled, Path outputRoot, java.util.function.LongConsumer progress)
+            throws IOException {
         Spec spec = compiled.spec();
         List<ColumnSpec> columns = spec.columns();
         int k = columns.size();
@@ -143,6 +147,9 @@ final class DatasetWriter {
                         }
                     }
                     writer.row(cells);
+                    if (progress != null && (row + 1) % PROGRESS_EVERY == 0) {
+                        progress.accept(row + 1);
+                    }
                 }
                 writer.end();
             }

@@ -111,6 +111,16 @@ public final class Engine {
      * to a temporary file and moved into place when complete.
      */
     public GenerationResult generate(CompiledSpec compiled, Path outputRoot) throws IOException {
-        return DatasetWriter.write(compiled, outputRoot);
+        return DatasetWriter.write(compiled, outputRoot, null);
+    }
+
+    /**
+     * As {@link #generate(CompiledSpec, Path)}, calling {@code rowsWritten} with the number of rows
+     * written so far every {@value DatasetWriter#PROGRESS_EVERY} rows, on the generating thread, so a
+     * caller can show progress of a long generation. The callback must be quick and must not throw.
+     */
+    public GenerationResult generate(CompiledSpec compiled, Path outputRoot, java.util.function.LongConsumer rowsWritten)
+            throws IOException {
+        return DatasetWriter.write(compiled, outputRoot, rowsWritten);
     }
 }
