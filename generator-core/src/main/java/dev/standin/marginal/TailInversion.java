@@ -42,7 +42,14 @@ final class TailInversion {
             return upper;
         }
         boolean upperTail = p > 0.5;
-        DoubleUnaryOperator f = upperTail ? x -> q - survival.applyAsDouble(x) : x -> cdf.applyAsDouble(x) - p;
+        if (upperTail && !(q > 0)) {
+            return upper;
+        }
+        // (F − p)/(F + p) rather than F − p: the same sign and root, but O(1) near the root however
+        // small p is, so Brent's sign test f(a)·f(b) < 0 cannot underflow to zero (it did for the
+        // gamma's upper tail below 1e-300, throwing NoBracketingException)
+        DoubleUnaryOperator f = upperTail ? x -> relative(q, survival.applyAsDouble(x))
+                : x -> -relative(p, cdf.applyAsDouble(x));
         double hi = Math.min(Math.max(start, lower), upper);
         if (upper == Double.POSITIVE_INFINITY) {
             double step = Math.max(Math.abs(start), 1.0);
@@ -63,7 +70,14 @@ final class TailInversion {
         if (f.applyAsDouble(hi) <= 0) {
             return hi;
         }
-        BrentSolver solver = new BrentSolver(1e-15, Double.MIN_NORMAL, 0.0);
+        // absolute accuracy MIN_VALUE, not MIN_NORMAL: quantiles near 1e-308 (gamma or beta with shape
+        // below 1, far lower tail) must still come out increasing in p
+        BrentSolver solver = new BrentSolver(1e-15, Double.MIN_VALUE, 0.0);
         return solver.solve(10_000, f::applyAsDouble, lo, hi);
+    }
+
+    /** (target − value)/(target + value): negative when value exceeds target, in [−1, 1]. */
+    private static double relative(double target, double value) {
+        return (target - value) / (target + value);
     }
 }
