@@ -43,7 +43,8 @@ final class BetaMarginal implements Marginal {
         return Beta.regularizedBeta(x, alpha, beta, 1e-15, 100_000);
     }
 
-    double survival(double x) {
+    @Override
+    public double survival(double x) {
         if (x <= 0) {
             return 1.0;
         }

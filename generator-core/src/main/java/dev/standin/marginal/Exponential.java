@@ -30,6 +30,11 @@ final class Exponential implements Marginal {
     }
 
     @Override
+    public double survival(double x) {
+        return x <= 0 ? 1.0 : StrictMath.exp(-rate * x);
+    }
+
+    @Override
     public double mean() {
         return 1 / rate;
     }

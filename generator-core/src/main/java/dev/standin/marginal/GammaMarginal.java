@@ -37,7 +37,8 @@ final class GammaMarginal implements Marginal {
         return x <= 0 ? 0.0 : Gamma.regularizedGammaP(shape, x / scale, 1e-15, 100_000);
     }
 
-    double survival(double x) {
+    @Override
+    public double survival(double x) {
         return x <= 0 ? 1.0 : Gamma.regularizedGammaQ(shape, x / scale, 1e-15, 100_000);
     }
 

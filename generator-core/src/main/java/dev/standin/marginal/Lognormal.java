@@ -43,6 +43,11 @@ final class Lognormal implements Marginal {
     }
 
     @Override
+    public double survival(double x) {
+        return x <= 0 ? 1.0 : StandardNormal.cdf(-(StrictMath.log(x) - mu) / sigma);
+    }
+
+    @Override
     public double mean() {
         return StrictMath.exp(mu + sigma * sigma / 2);
     }

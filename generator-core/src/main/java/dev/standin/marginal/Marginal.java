@@ -19,6 +19,14 @@ public interface Marginal {
     /** The distribution function F(x). */
     double cdf(double x);
 
+    /**
+     * The survival function S(x) = 1 − F(x). Families whose upper tail can be computed directly (not
+     * as 1 − F, which loses every digit once F is within 1e-16 of 1) override it.
+     */
+    default double survival(double x) {
+        return 1.0 - cdf(x);
+    }
+
     /** The mean of the distribution as sampled (after any truncation). */
     double mean();
 

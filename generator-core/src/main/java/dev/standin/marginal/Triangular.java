@@ -43,6 +43,17 @@ final class Triangular implements Marginal {
     }
 
     @Override
+    public double survival(double x) {
+        if (x <= a) {
+            return 1.0;
+        }
+        if (x >= b) {
+            return 0.0;
+        }
+        return x <= c ? 1 - (x - a) * (x - a) / ((b - a) * (c - a)) : (b - x) * (b - x) / ((b - a) * (b - c));
+    }
+
+    @Override
     public double mean() {
         return (a + b + c) / 3;
     }

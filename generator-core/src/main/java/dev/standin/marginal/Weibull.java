@@ -38,6 +38,11 @@ final class Weibull implements Marginal {
     }
 
     @Override
+    public double survival(double x) {
+        return x <= 0 ? 1.0 : StrictMath.exp(-StrictMath.pow(x / scale, shape));
+    }
+
+    @Override
     public double mean() {
         return scale * StrictMath.exp(Gamma.logGamma(1 + 1 / shape));
     }
