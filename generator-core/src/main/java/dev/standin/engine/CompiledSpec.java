@@ -5,9 +5,16 @@ import dev.standin.spec.Spec;
 
 /**
  * A spec that passed every check and is ready to generate: the parsed spec, its latent model, the
- * spec file's SHA-256, and where its files go relative to the output folder ('/'-separated).
+ * spec file's SHA-256, where its files go relative to the output folder ('/'-separated), and whether
+ * the HTML report is written.
  */
-public record CompiledSpec(Spec spec, LatentModel model, String specSha256, String dataFile, String reportFile) {
+public record CompiledSpec(Spec spec, LatentModel model, String specSha256, String dataFile, String reportFile,
+                           boolean htmlReport) {
+
+    /** The HTML report's path relative to the output folder: {@code <dataset>.report.html} beside the JSON report. */
+    public String htmlReportFile() {
+        return reportFile.substring(0, reportFile.length() - ".json".length()) + ".html";
+    }
 
     /** Warnings to show the user before generating, each {@code FILE:LINE:COLUMN: warning: ...}. */
     public java.util.List<String> warnings() {
@@ -20,6 +27,6 @@ public record CompiledSpec(Spec spec, LatentModel model, String specSha256, Stri
      * {@link Engine#generate} writes.
      */
     public java.util.List<String> outputFiles() {
-        return java.util.List.of(dataFile, reportFile);
+        return htmlReport ? java.util.List.of(dataFile, reportFile, htmlReportFile()) : java.util.List.of(dataFile, reportFile);
     }
 }

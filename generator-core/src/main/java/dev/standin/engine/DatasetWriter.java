@@ -1,6 +1,5 @@
 package dev.standin.engine;
 
-import dev.standin.marginal.DiscreteTable;
 import dev.standin.marginal.Marginal;
 import dev.standin.marginal.ValueKind;
 import dev.standin.output.AtomicFile;
@@ -9,10 +8,10 @@ import dev.standin.output.CsvRowWriter;
 import dev.standin.output.JsonRowWriter;
 import dev.standin.output.NumberText;
 import dev.standin.output.RowWriter;
-import dev.standin.report.Moments;
-import dev.standin.report.PairMoments;
-import dev.standin.report.RowSample;
-import dev.standin.spec.CorrelationSpec;
+import dev.standin.report.Check;
+import dev.standin.report.DatasetStats;
+import dev.standin.report.FidelityChecks;
+import dev.standin.report.HtmlReport;
 import dev.standin.sampling.RowSampler;
 import dev.standin.spec.ColumnSpec;
 import dev.standin.spec.OutputSpec;
@@ -55,7 +54,6 @@ final class DatasetWriter {
         CellKind[] kinds = new CellKind[k];
         ValueKind[] valueKinds = new ValueKind[k];
         Marginal[] marginals = new Marginal[k];
-        long[][] levelCounts = new long[k][];
         List<String> names = new ArrayList<>();
         for (int i = 0; i < k; i++) {
             ColumnSpec c = columns.get(i);
@@ -68,35 +66,15 @@ final class DatasetWriter {
                 case BOOLEAN -> CellKind.BOOLEAN;
                 case LABEL, DATE, TIMESTAMP -> CellKind.TEXT;
             };
-            if (valueKinds[i] == ValueKind.LABEL || valueKinds[i] == ValueKind.BOOLEAN) {
-                levelCounts[i] = new long[valueKinds[i] == ValueKind.BOOLEAN ? 2 : levelsOf(marginals[i])];
-            }
         }
-        List<String> order = compiled.model().order();
-        int[] pairColumn = new int[order.size()];
-        for (int p = 0; p < pairColumn.length; p++) {
-            pairColumn[p] = names.indexOf(order.get(p));
-        }
-        Moments[] moments = new Moments[k];
-        for (int i = 0; i < k; i++) {
-            moments[i] = new Moments();
-        }
-        PairMoments[][] pairs = new PairMoments[order.size()][order.size()];
-        for (int a = 0; a < pairs.length; a++) {
-            for (int b = 0; b < a; b++) {
-                pairs[a][b] = new PairMoments();
-            }
-        }
-
-        CorrelationSpec.Measure measure = spec.correlation() == null ? null : spec.correlation().measure();
-        boolean ranks = measure == CorrelationSpec.Measure.SPEARMAN || measure == CorrelationSpec.Measure.KENDALL;
-        RowSample sample = ranks ? new RowSample(spec.seed(), RowSample.DEFAULT_SIZE) : null;
-        double[] sampled = new double[pairColumn.length];
+        DatasetStats stats = new DatasetStats(spec, compiled.model().order());
         Path dataPath = outputRoot.resolve(compiled.dataFile());
         Path reportPath = outputRoot.resolve(compiled.reportFile());
+        boolean html = compiled.htmlReport();
         MessageDigest digest = Hashes.sha256();
         long bytes;
-        try (AtomicFile data = AtomicFile.create(dataPath); AtomicFile report = AtomicFile.create(reportPath)) {
+        try (AtomicFile data = AtomicFile.create(dataPath); AtomicFile report = AtomicFile.create(reportPath);
+             AtomicFile page = html ? AtomicFile.create(outputRoot.resolve(compiled.htmlReportFile())) : null) {
             CountingStream counter;
             try (OutputStream file = Files.newOutputStream(data.temp());
                  Writer out = new BufferedWriter(new OutputStreamWriter(
@@ -112,7 +90,6 @@ final class DatasetWriter {
                     for (int i = 0; i < k; i++) {
                         if (missing[i]) {
                             cells[i] = null;
-                            moments[i].addMissing();
                             continue;
                         }
                         if (sampler.isSequence(i)) {
@@ -122,30 +99,9 @@ final class DatasetWriter {
                             cells[i] = text(valueKinds[i], marginals[i], values[i], decimals[i]);
                             written[i] = valueKinds[i] == ValueKind.NUMBER && decimals[i] >= 0
                                     ? Double.parseDouble(cells[i]) : values[i];
-                            if (levelCounts[i] != null) {
-                                levelCounts[i][(int) values[i]]++;
-                            }
-                        }
-                        moments[i].add(written[i]);
-                    }
-                    if (sample != null) {
-                        for (int a = 0; a < pairColumn.length; a++) {
-                            sampled[a] = missing[pairColumn[a]] ? Double.NaN : written[pairColumn[a]];
-                        }
-                        sample.offer(row, sampled);
-                    }
-                    for (int a = 0; a < pairColumn.length; a++) {
-                        int ca = pairColumn[a];
-                        if (missing[ca]) {
-                            continue;
-                        }
-                        for (int b = 0; b < a; b++) {
-                            int cb = pairColumn[b];
-                            if (!missing[cb]) {
-                                pairs[a][b].add(written[ca], written[cb]);
-                            }
                         }
                     }
+                    stats.accept(row, written, missing);
                     writer.row(cells);
                     if (progress != null && (row + 1) % PROGRESS_EVERY == 0) {
                         progress.accept(row + 1);
@@ -156,12 +112,28 @@ final class DatasetWriter {
             bytes = counter.count();
             GenerationResult.WrittenFile dataFile = new GenerationResult.WrittenFile(compiled.dataFile(), bytes,
                     Hashes.hex(digest.digest()));
-            String json = Report.build(compiled, dataFile, moments, pairs, levelCounts, sample);
-            Files.write(report.temp(), json.getBytes(StandardCharsets.UTF_8));
+            List<Check> checks = FidelityChecks.of(spec, compiled.model(), stats);
+            byte[] json = Report.build(compiled, dataFile, stats, checks).getBytes(StandardCharsets.UTF_8);
+            Files.write(report.temp(), json);
+            List<GenerationResult.WrittenFile> files = new ArrayList<>(List.of(dataFile));
+            files.add(written(compiled.reportFile(), json));
+            if (page != null) {
+                byte[] htmlBytes = HtmlReport.build(compiled, stats, checks, Report.achieved(compiled, stats))
+                        .getBytes(StandardCharsets.UTF_8);
+                Files.write(page.temp(), htmlBytes);
+                files.add(written(compiled.htmlReportFile(), htmlBytes));
+            }
             data.commit();
             report.commit();
-            return new GenerationResult(spec.dataset(), spec.rows(), k, List.of(dataFile), note(compiled));
+            if (page != null) {
+                page.commit();
+            }
+            return new GenerationResult(spec.dataset(), spec.rows(), k, List.copyOf(files), note(compiled), List.copyOf(checks));
         }
+    }
+
+    private static GenerationResult.WrittenFile written(String path, byte[] bytes) {
+        return new GenerationResult.WrittenFile(path, bytes.length, Hashes.sha256(bytes));
     }
 
     /** The written text of a value of the given kind. */
@@ -174,10 +146,6 @@ final class DatasetWriter {
             case DATE -> LocalDate.ofEpochDay((long) value).toString();
             case TIMESTAMP -> Instant.ofEpochSecond((long) value).toString();
         };
-    }
-
-    private static int levelsOf(Marginal m) {
-        return (int) (((DiscreteTable) m).highest() + 1);
     }
 
     private static String note(CompiledSpec compiled) {

@@ -26,8 +26,12 @@ public final class Engine {
     private final SpecParser parser;
     private final NortaPearson norta;
     private final boolean formatOverridden;
+    private final Overrides overrides;
+    private final boolean htmlReport;
 
-    private Engine(Overrides overrides) {
+    private Engine(Overrides overrides, boolean htmlReport) {
+        this.overrides = overrides;
+        this.htmlReport = htmlReport;
         this.formatOverridden = overrides != null && overrides.format() != null;
         this.parser = SpecParser.withOverrides(overrides);
         this.norta = new NortaPearson();
@@ -35,7 +39,12 @@ public final class Engine {
 
     /** An engine that applies the given overrides (seed, rows, format) to every spec. */
     public static Engine create(Overrides overrides) {
-        return new Engine(overrides);
+        return new Engine(overrides, true);
+    }
+
+    /** The same engine without the HTML report ({@code <dataset>.report.html}); the JSON report is always written. */
+    public Engine withoutHtmlReport() {
+        return new Engine(overrides, false);
     }
 
     /**
@@ -77,7 +86,7 @@ public final class Engine {
             Mark at = spec.output().fileMark() != null ? spec.output().fileMark() : Mark.startOf(displayName);
             throw new SpecException(SpecProblem.at(at, "output file " + dataFile + " would overwrite the report; choose another name"));
         }
-        return new CompiledSpec(spec, model, Hashes.sha256(bytes), dataPath, reportPath);
+        return new CompiledSpec(spec, model, Hashes.sha256(bytes), dataPath, reportPath, htmlReport);
     }
 
     /** The spec's file name with its extension replaced by the overriding format's. */

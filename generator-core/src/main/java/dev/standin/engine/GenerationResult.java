@@ -1,9 +1,19 @@
 package dev.standin.engine;
 
+import dev.standin.report.Check;
 import java.util.List;
 
-/** What one generation wrote; {@code note} is null or a short remark for the summary line. */
-public record GenerationResult(String dataset, long rows, int columns, List<WrittenFile> files, String note) {
+/**
+ * What one generation wrote: the files (data first, then the reports), a note for the summary line
+ * (or null), and the fidelity checks of the written data.
+ */
+public record GenerationResult(String dataset, long rows, int columns, List<WrittenFile> files, String note,
+                               List<Check> checks) {
+
+    /** The checks that were made and failed. */
+    public List<Check> failedChecks() {
+        return checks.stream().filter(c -> !c.ok()).toList();
+    }
 
     /** One written file: its path relative to the output folder ('/'-separated), size and SHA-256. */
     public record WrittenFile(String path, long bytes, String sha256) {
@@ -17,6 +27,7 @@ public record GenerationResult(String dataset, long rows, int columns, List<Writ
     public String summary() {
         WrittenFile data = files.get(0);
         return dataset + ": " + rows + " rows × " + columns + " columns → " + data.path() + " (" + data.bytes() + " bytes)"
-                + (note == null ? "" : "; " + note);
+                + (note == null ? "" : "; " + note)
+                + (failedChecks().isEmpty() ? "" : "; " + failedChecks().size() + " fidelity check(s) FAILED");
     }
 }

@@ -56,6 +56,18 @@ public final class RowSample {
         return out;
     }
 
+    /** The kept rows' values, smallest priority first: any prefix is itself a seeded random sample. */
+    public List<double[]> rowsByPriority() {
+        List<Entry> all = new ArrayList<>(heap);
+        all.sort((a, b) -> Long.compareUnsigned(a.priority, b.priority) != 0 ? Long.compareUnsigned(a.priority, b.priority)
+                : Long.compare(a.row, b.row));
+        List<double[]> out = new ArrayList<>(all.size());
+        for (Entry e : all) {
+            out.add(e.values);
+        }
+        return out;
+    }
+
     public int size() {
         return heap.size();
     }
