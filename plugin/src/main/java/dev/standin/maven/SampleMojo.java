@@ -3,6 +3,8 @@ package dev.standin.maven;
 import java.io.File;
 import java.nio.file.Path;
 import java.nio.file.Paths;
+import java.util.Properties;
+import org.apache.maven.execution.MavenSession;
 import org.apache.maven.plugin.AbstractMojo;
 import org.apache.maven.plugin.MojoExecutionException;
 import org.apache.maven.plugin.MojoFailureException;
@@ -12,7 +14,9 @@ import org.apache.maven.plugins.annotations.Parameter;
 /**
  * Generates the named spec files without needing a project: handy to try a spec out. Each spec is
  * named in messages as given; its data file and report go straight into the output folder (by
- * default the folder Maven was started in). All specs are checked before anything is written.
+ * default the folder Maven was started in). All specs are checked before anything is written. It
+ * keeps no state: every spec named is generated each time. {@code -Dstandin.seed},
+ * {@code -Dstandin.rows} and {@code -Dstandin.format} win over the same parameters in a pom.
  *
  * <p>Usage, in any folder:
  * <pre>
@@ -57,7 +61,8 @@ public final class SampleMojo extends AbstractMojo {
     private File outputDirectory;
 
     /**
-     * Replaces the {@code seed} of every spec: a 64-bit integer.
+     * Replaces the {@code seed} of every spec: a 64-bit integer. {@code -Dstandin.seed} wins over a value in
+     * the pom.
      *
      * @since 0.1.0
      */
@@ -65,7 +70,8 @@ public final class SampleMojo extends AbstractMojo {
     private String seed;
 
     /**
-     * Replaces the {@code rows} of every spec: a whole number from 0 to 2^40.
+     * Replaces the {@code rows} of every spec: a whole number from 0 to 2^40. {@code -Dstandin.rows} wins over a value in
+     * the pom.
      *
      * @since 0.1.0
      */
@@ -73,12 +79,17 @@ public final class SampleMojo extends AbstractMojo {
     private String rows;
 
     /**
-     * Replaces the output format of every spec: {@code csv}, {@code json} or {@code jsonl}.
+     * Replaces the output format of every spec: {@code csv}, {@code json} or {@code jsonl}. {@code -Dstandin.format} wins over a value in
+     * the pom.
      *
      * @since 0.1.0
      */
     @Parameter(property = "standin.format")
     private String format;
+
+    /** The build, for the {@code -D} user properties that win over the pom. */
+    @Parameter(defaultValue = "${session}", readonly = true)
+    private MavenSession session;
 
     /** The folder Maven was started in (the session's execution root). */
     @Parameter(defaultValue = "${session.executionRootDirectory}", readonly = true)
@@ -87,7 +98,11 @@ public final class SampleMojo extends AbstractMojo {
     @Override
     public void execute() throws MojoExecutionException, MojoFailureException {
         Path base = startDirectory != null ? startDirectory.toPath() : Paths.get(System.getProperty("user.dir"));
+        Properties user = session == null ? null : session.getUserProperties();
         PluginBridge.withLog(getLog()).sampleGoal(spec, base.toAbsolutePath(),
-                outputDirectory == null ? null : outputDirectory.toPath(), seed, rows, format);
+                outputDirectory == null ? null : outputDirectory.toPath(),
+                CommandLine.value(user, PluginBridge.SEED_PROPERTY, seed),
+                CommandLine.value(user, PluginBridge.ROWS_PROPERTY, rows),
+                CommandLine.value(user, PluginBridge.FORMAT_PROPERTY, format));
     }
 }

@@ -6,6 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertSame;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import dev.standin.engine.Engine;
 import dev.standin.engine.GenerationResult;
 import dev.standin.spec.OutputFormat;
 import dev.standin.spec.Overrides;
@@ -42,6 +43,19 @@ class PluginBridgeTest {
                 + extra;
     }
 
+    /**
+     * The files the core says a spec writes ({@code CompiledSpec.outputFiles()}), so these tests follow
+     * the core's list of outputs (data file, JSON report and whatever else it adds) instead of copying it.
+     */
+    static List<String> outputsOf(String name, String yaml, String subdir, Overrides overrides) throws Exception {
+        return Engine.create(overrides).compile(name, yaml.getBytes(StandardCharsets.UTF_8), subdir).outputFiles();
+    }
+
+    @SafeVarargs
+    static List<String> sortedUnion(List<String>... lists) {
+        return Stream.of(lists).flatMap(List::stream).sorted().distinct().collect(Collectors.toList());
+    }
+
     private static void write(Path file, String text) throws IOException {
         Files.createDirectories(file.getParent());
         Files.write(file, text.getBytes(StandardCharsets.UTF_8));
@@ -58,13 +72,23 @@ class PluginBridgeTest {
     }
 
     /** A log that keeps its info and error lines so tests can check what a user would read. */
-    private static final class RecordingLog extends SystemStreamLog {
+    static final class RecordingLog extends SystemStreamLog {
         final List<String> info = new ArrayList<>();
+        final List<String> warn = new ArrayList<>();
 
         @Override
         public void info(CharSequence content) {
             info.add(content.toString());
         }
+
+        @Override
+        public void warn(CharSequence content) {
+            warn.add(content.toString());
+        }
+    }
+
+    private static PluginBridge.GenerateRequest request(Path specs, Path out) {
+        return PluginBridge.GenerateRequest.of(specs, out);
     }
 
     // --- overrides -------------------------------------------------------------------------------
@@ -155,13 +179,21 @@ class PluginBridgeTest {
         Path out = dir.resolve("out");
         RecordingLog log = new RecordingLog();
         MavenProject project = new MavenProject();
-        List<GenerationResult> results = PluginBridge.withLog(log).generateGoal(false, specs, out, null, null, null, project);
+        List<GenerationResult> results = PluginBridge.withLog(log).generateGoal(request(specs, out), project);
 
         // Data file <dataset>.<format> and <dataset>.report.json beside it, under the spec's sub-folder (api.md).
-        assertEquals(List.of("ovens.csv", "ovens.report.json", "shops/north/loaves.jsonl", "shops/north/loaves.report.json"),
-                filesUnder(out));
+        List<String> ovens = outputsOf("ovens.yaml", spec("ovens", ""), "", null);
+        List<String> loaves = outputsOf("shops/north/loaves.yml", spec("loaves", "output:\n  format: jsonl\n"), "shops/north", null);
+        assertEquals(List.of("ovens.csv", "ovens.report.json"), ovens.subList(0, 2));
+        assertEquals(List.of("shops/north/loaves.jsonl", "shops/north/loaves.report.json"), loaves.subList(0, 2));
+        assertEquals(sortedUnion(ovens, loaves), filesUnder(out));
         assertEquals(2, results.size());
-        assertEquals(List.of(results.get(0).summary(), results.get(1).summary()), log.info);
+        // One line per dataset: the summary, then the time taken (" in 0.0 s", one decimal).
+        assertEquals(2, log.info.size(), log.info.toString());
+        for (int i = 0; i < 2; i++) {
+            assertTrue(log.info.get(i).matches(java.util.regex.Pattern.quote(results.get(i).summary()) + " in \\d+\\.\\d s"),
+                    log.info.get(i));
+        }
         assertTrue(log.info.get(0).startsWith("ovens: 3 rows × 1 columns → ovens.csv ("), log.info.get(0));
         // CSV with a header line (RFC 4180 §2.3) and 3 records, each ending in a line break: 4 lines.
         List<String> csv = Files.readAllLines(out.resolve("ovens.csv"), StandardCharsets.UTF_8);
@@ -173,7 +205,7 @@ class PluginBridgeTest {
         assertEquals(1, resources.size());
         assertEquals(out.toAbsolutePath().toString(), resources.get(0).getDirectory());
         // A second execution into the same folder does not add it twice.
-        PluginBridge.withLog(log).generateGoal(false, specs, out, null, null, null, project);
+        PluginBridge.withLog(log).generateGoal(request(specs, out), project);
         assertEquals(1, project.getTestResources().size());
     }
 
@@ -183,9 +215,41 @@ class PluginBridgeTest {
         write(specs.resolve("a.yaml"), spec("a", ""));
         write(specs.resolve("b.yaml"), spec("b", "output:\n  format: json\n"));
         Path out = dir.resolve("out");
-        PluginBridge.withLog(new RecordingLog()).generateGoal(false, specs, out, "5", "7", "jsonl", null);
-        assertEquals(List.of("a.jsonl", "a.report.json", "b.jsonl", "b.report.json"), filesUnder(out));
+        PluginBridge.withLog(new RecordingLog()).generateGoal(request(specs, out).overriding("5", "7", "jsonl"), null);
+        Overrides jsonl = new Overrides(5L, 7L, OutputFormat.JSONL);
+        List<String> a = outputsOf("a.yaml", spec("a", ""), "", jsonl);
+        List<String> b = outputsOf("b.yaml", spec("b", "output:\n  format: json\n"), "", jsonl);
+        assertEquals(List.of("a.jsonl", "b.jsonl"), List.of(a.get(0), b.get(0)));
+        assertEquals(sortedUnion(a, b), filesUnder(out));
         assertEquals(7, Files.readAllLines(out.resolve("b.jsonl")).size());
+    }
+
+    @Test
+    void specWarningsAreWarnLinesAndTheRepairNoteFollowsTheTime(@TempDir Path dir) throws Exception {
+        Path specs = dir.resolve("specs");
+        // a ~ b = b ~ c = 0.9 with a ~ c = 0.6 is not positive semidefinite: the determinant
+        // 1 + 2(0.9)(0.9)(0.6) - 0.81 - 0.81 - 0.36 = -0.008 < 0 (closed form), so a small nearest
+        // repair is made and warned about.
+        write(specs.resolve("pumps/pressure.yaml"), "dataset: pressure\nrows: 5\nseed: 3\ncolumns:\n"
+                + "  a: {dist: normal, mean: 0, sd: 1}\n  b: {dist: normal, mean: 0, sd: 1}\n  c: {dist: normal, mean: 0, sd: 1}\n"
+                + "correlation:\n  pairs: {a ~ b: 0.9, b ~ c: 0.9, a ~ c: 0.6}\n  max-change: 0.05\n");
+        RecordingLog log = new RecordingLog();
+        PluginBridge.withLog(log).generateGoal(request(specs, dir.resolve("out")), null);
+        assertEquals(1, log.warn.size(), log.warn.toString());
+        // The pairs mapping starts on line 9, column 10 (counted by hand: "  pairs: " is 9 characters).
+        assertTrue(log.warn.get(0).startsWith("pumps/pressure.yaml:9:10: warning: correlation matrix repaired"), log.warn.get(0));
+        assertEquals(1, log.info.size(), log.info.toString());
+        assertTrue(log.info.get(0).matches("pressure: 5 rows × 3 columns → pumps/pressure\\.csv \\(\\d+ bytes\\) in \\d+\\.\\d s;"
+                + " correlation repaired \\(max change 0\\.\\d{4}\\).*"), log.info.get(0));
+    }
+
+    @Test
+    void theTimeGoesRightAfterTheSizeOrAtTheEnd() {
+        String summary = "ferry-crossings: 5000 rows × 4 columns → ferry-crossings.csv (90803 bytes)";
+        assertEquals(summary + " in 0.4 s", PluginBridge.summaryLine(summary, 412_000_000L));
+        String notes = "; correlation repaired (max change 0.0312); 1 fidelity check(s) FAILED";
+        assertEquals(summary + " in 1.0 s" + notes, PluginBridge.summaryLine(summary + notes, 999_000_000L));
+        assertEquals("no size here in 0.0 s", PluginBridge.summaryLine("no size here", 0L));
     }
 
     @Test
@@ -198,7 +262,7 @@ class PluginBridgeTest {
         Path out = dir.resolve("out");
         MavenProject project = new MavenProject();
         MojoFailureException e = assertThrows(MojoFailureException.class,
-                () -> PluginBridge.withLog(new RecordingLog()).generateGoal(false, specs, out, null, null, null, project));
+                () -> PluginBridge.withLog(new RecordingLog()).generateGoal(request(specs, out), project));
         assertEquals("b/bad.yaml:6:38: normal: sd must be > 0: -3", e.getMessage());
         assertEquals(List.of(), filesUnder(out));
         assertTrue(project.getTestResources().isEmpty());
@@ -211,8 +275,9 @@ class PluginBridgeTest {
         write(specs.resolve("south.yml"), spec("tram-shifts", ""));
         Path out = dir.resolve("out");
         MojoFailureException e = assertThrows(MojoFailureException.class,
-                () -> PluginBridge.withLog(new RecordingLog()).generateGoal(false, specs, out, null, null, null, null));
-        assertEquals("south.yml:1:1: tram-shifts.csv and tram-shifts.report.json would also be written by north.yaml;"
+                () -> PluginBridge.withLog(new RecordingLog()).generateGoal(request(specs, out), null));
+        assertEquals("south.yml:1:1: " + String.join(" and ", outputsOf("south.yml", spec("tram-shifts", ""), "", null))
+                + " would also be written by north.yaml;"
                 + " give one of the specs another dataset name or output file", e.getMessage());
         assertEquals(List.of(), filesUnder(out));
     }
@@ -224,7 +289,7 @@ class PluginBridgeTest {
         write(specs.resolve("a.yaml"), spec("ovens", "output:\n  file: loaves.report.json\n  format: json\n"));
         write(specs.resolve("b.yaml"), spec("loaves", ""));
         MojoFailureException e = assertThrows(MojoFailureException.class,
-                () -> PluginBridge.withLog(new RecordingLog()).generateGoal(false, specs, dir.resolve("out"), null, null, null, null));
+                () -> PluginBridge.withLog(new RecordingLog()).generateGoal(request(specs, dir.resolve("out")), null));
         assertEquals("b.yaml:1:1: loaves.report.json would also be written by a.yaml;"
                 + " give one of the specs another dataset name or output file", e.getMessage());
         assertFalse(Files.exists(dir.resolve("out")));
@@ -237,7 +302,7 @@ class PluginBridgeTest {
         write(specs.resolve("b.yaml"), spec("other", "output:\n  file: ledger.CSV\n"));
         Path out = dir.resolve("out");
         MojoFailureException e = assertThrows(MojoFailureException.class,
-                () -> PluginBridge.withLog(new RecordingLog()).generateGoal(false, specs, out, null, null, null, null));
+                () -> PluginBridge.withLog(new RecordingLog()).generateGoal(request(specs, out), null));
         // The mark is that of b.yaml's output file value: line 7 ("  file: ledger.CSV"), column 9.
         assertEquals("b.yaml:7:9: ledger.CSV (as Ledger.csv there; paths that differ only in letter case clash on some"
                 + " file systems) would also be written by a.yaml; give one of the specs another dataset name or output file",
@@ -252,13 +317,15 @@ class PluginBridgeTest {
         Path out = dir.resolve("out");
         RecordingLog log = new RecordingLog();
         // Skipping wins over a bad override value (nothing is read when skipped).
-        assertEquals(List.of(), PluginBridge.withLog(log).generateGoal(true, specs, out, null, "lots", null, null));
-        assertEquals(List.of("Skipping Standin generation because standin.skip is true."), log.info);
+        String why = "standin.skip is true (-Dstandin.skip on the command line)";
+        assertEquals(List.of(), PluginBridge.withLog(log).generateGoal(request(specs, out).overriding(null, "lots", null)
+                .skipped(why), null));
+        assertEquals(List.of("Skipping Standin generation because " + why + "."), log.info);
         assertFalse(Files.exists(out));
 
         RecordingLog log2 = new RecordingLog();
         Path missing = dir.resolve("no-such-folder");
-        assertEquals(List.of(), PluginBridge.withLog(log2).generateGoal(false, missing, out, null, null, null, null));
+        assertEquals(List.of(), PluginBridge.withLog(log2).generateGoal(request(missing, out), null));
         assertEquals(List.of("No spec folder at " + missing + "; nothing to generate."), log2.info);
         assertFalse(Files.exists(out));
     }
@@ -268,7 +335,7 @@ class PluginBridgeTest {
         Path file = dir.resolve("specs");
         write(file, "not a folder");
         MojoFailureException e = assertThrows(MojoFailureException.class,
-                () -> PluginBridge.withLog(new RecordingLog()).generateGoal(false, file, dir.resolve("out"), null, null, null, null));
+                () -> PluginBridge.withLog(new RecordingLog()).generateGoal(request(file, dir.resolve("out")), null));
         assertEquals("standin.specDirectory must be a folder: " + file, e.getMessage());
     }
 
@@ -294,7 +361,7 @@ class PluginBridgeTest {
         Path out = dir.resolve("out");
         write(out, "a file where the output folder should be");
         MojoExecutionException e = assertThrows(MojoExecutionException.class,
-                () -> PluginBridge.withLog(new RecordingLog()).generateGoal(false, specs, out, null, null, null, null));
+                () -> PluginBridge.withLog(new RecordingLog()).generateGoal(request(specs, out), null));
         assertTrue(e.getMessage().startsWith("cannot write " + out), e.getMessage());
     }
 }
