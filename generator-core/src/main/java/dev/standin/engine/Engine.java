@@ -8,6 +8,7 @@ import dev.standin.spec.SpecException;
 import dev.standin.spec.SpecParser;
 import dev.standin.spec.SpecProblem;
 import dev.standin.spec.Mark;
+import dev.standin.output.DirectoryLock;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
@@ -77,15 +78,13 @@ public final class Engine {
     public CompiledSpec compile(String displayName, byte[] bytes, String outputSubdir) throws SpecException {
         Spec spec = parser.parse(displayName, bytes);
         LatentModel model = LatentModel.of(spec, norta);
-        String prefix = outputSubdir == null || outputSubdir.isEmpty() ? "" : trimSlashes(outputSubdir) + "/";
+        String subfolder = OutputPaths.subfolder(displayName, outputSubdir);
+        String prefix = subfolder.isEmpty() ? "" : subfolder + "/";
         String dataFile = spec.output().file() != null ? (formatOverridden ? withFormat(spec) : spec.output().file()) : spec.dataset() + "." + spec.output().format().word();
         String dataPath = prefix + dataFile;
         int slash = dataPath.lastIndexOf('/');
         String reportPath = (slash < 0 ? "" : dataPath.substring(0, slash + 1)) + spec.dataset() + ".report.json";
-        if (reportPath.equals(dataPath)) {
-            Mark at = spec.output().fileMark() != null ? spec.output().fileMark() : Mark.startOf(displayName);
-            throw new SpecException(SpecProblem.at(at, "output file " + dataFile + " would overwrite the report; choose another name"));
-        }
+        OutputPaths.checkNotReport(spec, displayName, dataPath);
         return new CompiledSpec(spec, model, Hashes.sha256(bytes), dataPath, reportPath, htmlReport);
     }
 
@@ -104,23 +103,17 @@ public final class Engine {
         return f;
     }
 
-    private static String trimSlashes(String s) {
-        String t = s.replace('\\', '/');
-        while (t.startsWith("/")) {
-            t = t.substring(1);
-        }
-        while (t.endsWith("/")) {
-            t = t.substring(0, t.length() - 1);
-        }
-        return t;
-    }
-
     /**
-     * Generates a compiled spec into the output folder: the data file and its report, each written
-     * to a temporary file and moved into place when complete.
+     * Generates a compiled spec into the output folder: the data file and its reports, each written
+     * to a temporary file and moved into place when complete. The folder is locked for the call (see
+     * {@link #openOutput}), waiting up to {@link DirectoryLock#DEFAULT_WAIT} for another run, silently;
+     * a run of several specs should rather open one {@link OutputSession} and generate each in it.
+     *
+     * @throws dev.standin.output.OutputBusyException when another run holds the folder too long
+     * @throws dev.standin.output.PathEscapeException when a folder on the way is a link leading outside
      */
     public GenerationResult generate(CompiledSpec compiled, Path outputRoot) throws IOException {
-        return DatasetWriter.write(compiled, outputRoot, null);
+        return generate(compiled, outputRoot, null);
     }
 
     /**
@@ -130,6 +123,22 @@ public final class Engine {
      */
     public GenerationResult generate(CompiledSpec compiled, Path outputRoot, java.util.function.LongConsumer rowsWritten)
             throws IOException {
-        return DatasetWriter.write(compiled, outputRoot, rowsWritten);
+        try (OutputSession session = openOutput(outputRoot, DirectoryLock.DEFAULT_WAIT, null)) {
+            return session.generate(compiled, rowsWritten);
+        }
+    }
+
+    /**
+     * Locks an output folder for one run (creating it if needed): concurrent runs into the same folder
+     * take turns, each waiting at most {@code wait}; see {@link DirectoryLock} for why a lock rather
+     * than per-file atomicity alone.
+     *
+     * @param waiting told once when another run holds the folder ("waiting for DIR/.standin.lock (held
+     *     by another Standin run)"), or null
+     * @throws dev.standin.output.OutputBusyException when another run still holds it after {@code wait}
+     */
+    public OutputSession openOutput(Path outputRoot, java.time.Duration wait, java.util.function.Consumer<String> waiting)
+            throws IOException {
+        return OutputSession.open(outputRoot, wait, waiting);
     }
 }

@@ -8,6 +8,14 @@ import java.util.List;
  * CSV per RFC 4180: a field is quoted when it contains the delimiter, a double quote, CR or LF (or
  * is text equal to the missing-value text, or has leading or trailing spaces), with quotes doubled
  * inside. Records end with {@code \n} (not RFC 4180's CRLF) so files are identical on every OS.
+ *
+ * <p>With the formula guard on, a text field (a header name or a text cell: categorical labels,
+ * dates, timestamps) that starts with {@code =}, {@code +}, {@code -}, {@code @}, a tab or a CR gets a
+ * leading {@code '}, so a spreadsheet shows it as text instead of evaluating it. That is common
+ * practice against "CSV injection" (the character list and the quote prefix are OWASP's "CSV
+ * Injection" page's). Number and boolean cells are never changed, so {@code -3.5} stays a number.
+ * The guard changes the data (a reader of the CSV sees the {@code '}), which is why it is off unless
+ * asked for.
  */
 public final class CsvRowWriter implements RowWriter {
 
@@ -17,8 +25,21 @@ public final class CsvRowWriter implements RowWriter {
     private final boolean header;
     private final char delimiter;
     private final String nullText;
+    private final boolean guardFormulas;
 
+    /** A writer without the formula guard. */
     public CsvRowWriter(Writer out, List<String> names, CellKind[] kinds, boolean header, char delimiter, String nullText) {
+        this(out, names, kinds, header, delimiter, nullText, false);
+    }
+
+    /**
+     * A writer.
+     *
+     * @param guardFormulas prefix formula-like text fields with {@code '} (see the class comment)
+     */
+    public CsvRowWriter(Writer out, List<String> names, CellKind[] kinds, boolean header, char delimiter, String nullText,
+                        boolean guardFormulas) {
+        this.guardFormulas = guardFormulas;
         this.out = out;
         this.names = List.copyOf(names);
         this.kinds = kinds.clone();
@@ -57,7 +78,17 @@ public final class CsvRowWriter implements RowWriter {
         out.write('\n');
     }
 
-    private void field(String s, boolean text) throws IOException {
+    /** True when a spreadsheet would read text starting this way as a formula (OWASP's list). */
+    static boolean formulaLike(String s) {
+        if (s.isEmpty()) {
+            return false;
+        }
+        char c = s.charAt(0);
+        return c == '=' || c == '+' || c == '-' || c == '@' || c == '\t' || c == '\r';
+    }
+
+    private void field(String value, boolean text) throws IOException {
+        String s = text && guardFormulas && formulaLike(value) ? "'" + value : value;
         if (needsQuotes(s, text)) {
             out.write('"');
             out.write(s.replace("\"", "\"\""));

@@ -100,7 +100,7 @@ final class CorrelationReader {
             Mark keyMark = pairs.mark(e.getValue().getKeyNode());
             String[] parts = e.getKey().split("~", -1);
             if (parts.length != 2 || parts[0].isBlank() || parts[1].isBlank()) {
-                problems.add(keyMark, "a pair must be written \"a ~ b\" with two column names: '" + e.getKey() + "'");
+                problems.add(keyMark, "a pair must be written \"a ~ b\" with two column names: '" + Names.shown(e.getKey()) + "'");
                 continue;
             }
             String a = parts[0].strip();
@@ -108,8 +108,8 @@ final class CorrelationReader {
             boolean known = true;
             for (String name : new String[] {a, b}) {
                 if (!byName.containsKey(name)) {
-                    problems.add(keyMark, "pair '" + e.getKey() + "' names unknown column '" + name + "'"
-                            + Names.suggestion(name, byName.keySet()));
+                    problems.add(keyMark, "pair '" + Names.shown(e.getKey()) + "' names unknown column '" + Names.shown(name) + "'"
+                            + (problems.full() ? "" : Names.suggestion(name, byName.keySet())));
                     known = false;
                 } else if (byName.get(name) instanceof ColumnSpec.Sequence) {
                     problems.add(keyMark, "pair '" + e.getKey() + "' names sequence column '" + name
@@ -145,24 +145,34 @@ final class CorrelationReader {
             }
             return null;
         }
+        java.util.Set<String> named = new java.util.HashSet<>();
+        for (Pair p : read) {
+            named.add(p.a());
+            named.add(p.b());
+        }
+        if (named.size() > SpecParser.MAX_CORRELATED) {
+            problems.add(pairs.mark(), "pairs must involve at most " + SpecParser.MAX_CORRELATED + " columns: " + named.size());
+            return null;
+        }
         List<String> order = new ArrayList<>();
         for (String name : byName.keySet()) {
-            for (Pair p : read) {
-                if (p.a().equals(name) || p.b().equals(name)) {
-                    order.add(name);
-                    break;
-                }
+            if (named.contains(name)) {
+                order.add(name);
             }
         }
         int k = order.size();
+        Map<String, Integer> index = new HashMap<>();
+        for (int i = 0; i < k; i++) {
+            index.put(order.get(i), i);
+        }
         double[][] values = new double[k][k];
         Mark[][] marks = new Mark[k][k];
         for (double[] row : values) {
             Arrays.fill(row, Double.NaN);
         }
         for (Pair p : read) {
-            int i = order.indexOf(p.a());
-            int j = order.indexOf(p.b());
+            int i = index.get(p.a());
+            int j = index.get(p.b());
             values[i][j] = p.value().value();
             values[j][i] = p.value().value();
             marks[i][j] = p.value().mark();
@@ -194,6 +204,11 @@ final class CorrelationReader {
         if (orderNodes == null || rowNodes == null) {
             return null;
         }
+        if (orderNodes.size() > SpecParser.MAX_CORRELATED) {
+            problems.add(m.valueMark("order"), "order must name at most " + SpecParser.MAX_CORRELATED + " columns: "
+                    + orderNodes.size());
+            return null;
+        }
         List<String> order = new ArrayList<>();
         boolean ok = true;
         for (Node n : orderNodes) {
@@ -204,7 +219,8 @@ final class CorrelationReader {
             }
             String name = ((ScalarNode) n).getValue();
             if (!byName.containsKey(name)) {
-                problems.add(m.mark(n), "order names unknown column '" + name + "'" + Names.suggestion(name, byName.keySet()));
+                problems.add(m.mark(n), "order names unknown column '" + Names.shown(name) + "'"
+                        + (problems.full() ? "" : Names.suggestion(name, byName.keySet())));
                 ok = false;
             } else if (byName.get(name) instanceof ColumnSpec.Sequence) {
                 problems.add(m.mark(n), "order names sequence column '" + name + "'; a sequence cannot be correlated");

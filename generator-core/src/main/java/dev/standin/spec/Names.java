@@ -8,6 +8,20 @@ final class Names {
     private Names() {
     }
 
+    /** The most characters of a user's text that a message repeats. */
+    static final int SHOWN_CHARS = 200;
+
+    /**
+     * A user's text as a message repeats it: whole when short, else its first {@link #SHOWN_CHARS}
+     * characters and its length, so that one line stays one readable line.
+     */
+    static String shown(String text) {
+        if (text.length() <= SHOWN_CHARS) {
+            return text;
+        }
+        return text.substring(0, SHOWN_CHARS) + "... (" + text.length() + " characters)";
+    }
+
     /** The closest candidate within a third of the name's length (at least 2 edits), or null. */
     static String closest(String name, Collection<String> candidates) {
         String best = null;

@@ -6,11 +6,13 @@ package dev.standin.spec;
  * @param file the output file name as written, or null for {@code <dataset>.<format>}
  * @param delimiter the CSV field separator
  * @param nullText the CSV text of a missing value
+ * @param guardFormulas CSV only: prefix text cells that a spreadsheet would read as a formula with
+ *     {@code '} ({@code guard-formulas}, default false)
  */
 public record OutputSpec(OutputFormat format, String file, Mark fileMark, boolean header, char delimiter,
-                         String nullText) {
+                         String nullText, boolean guardFormulas) {
 
     public static OutputSpec defaults() {
-        return new OutputSpec(OutputFormat.CSV, null, null, true, ',', "");
+        return new OutputSpec(OutputFormat.CSV, null, null, true, ',', "", false);
     }
 }

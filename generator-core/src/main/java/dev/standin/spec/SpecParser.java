@@ -44,10 +44,21 @@ public final class SpecParser {
     /** The largest number of columns in one spec. */
     public static final int MAX_COLUMNS = 10_000;
 
+    /**
+     * The most columns one correlation block may involve. The target, its completion and repair are
+     * dense k × k matrices with O(k³) eigen-decompositions per repair iteration, and NORTA solves one
+     * root per pair; at 500 columns that is 124,750 pairs and seconds per decomposition, so larger
+     * blocks are refused rather than left to run for hours.
+     */
+    public static final int MAX_CORRELATED = 500;
+
+    /** The key of the CSV formula guard in the {@code output:} block. */
+    public static final String GUARD_FORMULAS = "guard-formulas";
+
     private static final Pattern DATASET = Pattern.compile("[a-z0-9][a-z0-9_-]*");
     private static final int MAX_NAME_LENGTH = 128;
     private static final List<String> TOP_KEYS = List.of("dataset", "rows", "seed", "columns", "correlation", "output");
-    private static final List<String> OUTPUT_KEYS = List.of("format", "file", "header", "delimiter", "null");
+    private static final List<String> OUTPUT_KEYS = List.of("format", "file", "header", "delimiter", "null", GUARD_FORMULAS);
 
     private final Overrides overrides;
 
@@ -159,7 +170,11 @@ public final class SpecParser {
         String dataset = top.string("dataset");
         if (dataset != null && (!DATASET.matcher(dataset).matches() || dataset.length() > MAX_NAME_LENGTH)) {
             problems.add(top.valueMark("dataset"), "dataset must match [a-z0-9][a-z0-9_-]* (at most "
-                    + MAX_NAME_LENGTH + " characters): " + dataset);
+                    + MAX_NAME_LENGTH + " characters): " + Names.shown(dataset));
+            dataset = null;
+        } else if (dataset != null && windowsDevice(dataset)) {
+            problems.add(top.valueMark("dataset"), "dataset must not be a name Windows reserves for a device ("
+                    + WINDOWS_DEVICES_SHOWN + "): " + dataset);
             dataset = null;
         }
         Long rows = top.integer("rows", 0, MAX_ROWS, "a whole number from 0 to 2^40 (1099511627776)");
@@ -178,7 +193,7 @@ public final class SpecParser {
         OutputSpec output = top.has("output") ? readOutput(file, problems, top.get("output")) : OutputSpec.defaults();
         if (output != null && overrides.format() != null) {
             output = new OutputSpec(overrides.format(), output.file(), output.fileMark(), output.header(),
-                    output.delimiter(), output.nullText());
+                    output.delimiter(), output.nullText(), output.guardFormulas());
         }
         if (!complete || dataset == null || rows == null || seed == null || columns == null || output == null
                 || !problems.isEmpty()) {
@@ -252,9 +267,22 @@ public final class SpecParser {
         String outFile = m.string("file");
         if (outFile != null && !validFileName(outFile)) {
             problems.add(m.valueMark("file"), "output file must be a plain file name or a relative path of such names"
-                    + " (letters, digits, '.', '_', '-'; no '..', no absolute path): " + outFile);
+                    + " (letters, digits, '.', '_', '-'; no '..', no absolute path): " + Names.shown(outFile));
+        } else if (outFile != null) {
+            for (String part : outFile.split("/")) {
+                if (windowsDevice(part)) {
+                    problems.add(m.valueMark("file"), "output file must not use a name Windows reserves for a device ("
+                            + WINDOWS_DEVICES_SHOWN + ", with any extension): " + outFile);
+                    break;
+                }
+                if (part.endsWith(".")) {
+                    problems.add(m.valueMark("file"), "output file names must not end in '.' (Windows drops it): " + outFile);
+                    break;
+                }
+            }
         }
         Boolean header = m.bool("header");
+        Boolean guard = m.bool(GUARD_FORMULAS);
         char delimiter = ',';
         String d = m.string("delimiter");
         if (d != null) {
@@ -281,7 +309,19 @@ public final class SpecParser {
             return null;
         }
         return new OutputSpec(format, outFile, outFile == null ? null : m.valueMark("file"),
-                header == null || header, delimiter, nullText == null ? "" : nullText);
+                header == null || header, delimiter, nullText == null ? "" : nullText, guard != null && guard);
+    }
+
+    private static final Pattern WINDOWS_DEVICE = Pattern.compile("(con|prn|aux|nul|com[1-9]|lpt[1-9])(\\..*)?",
+            Pattern.CASE_INSENSITIVE);
+    private static final String WINDOWS_DEVICES_SHOWN = "CON, PRN, AUX, NUL, COM1-COM9, LPT1-LPT9";
+
+    /**
+     * True for a name that Windows resolves to a device rather than a file, with or without an
+     * extension ("Naming Files, Paths, and Namespaces", Microsoft's Win32 documentation).
+     */
+    static boolean windowsDevice(String name) {
+        return WINDOWS_DEVICE.matcher(name).matches();
     }
 
     private static final Pattern FILE_PART = Pattern.compile("[A-Za-z0-9_][A-Za-z0-9._-]*");

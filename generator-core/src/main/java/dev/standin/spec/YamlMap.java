@@ -22,6 +22,14 @@ import org.yaml.snakeyaml.nodes.Tag;
  */
 final class YamlMap {
 
+    /**
+     * The longest number text read, in characters. Far more than any double needs (17 significant
+     * digits always read back the same double), and short enough that parsing is instant:
+     * BigDecimal's parsing and conversion cost grows faster than the length, so a million-digit
+     * literal would take many seconds.
+     */
+    static final int MAX_NUMBER_CHARS = 100;
+
     private final String file;
     private final Problems problems;
     private final Node node;
@@ -39,7 +47,7 @@ final class YamlMap {
             NodeTuple first = entries.get(key);
             if (first != null) {
                 Mark a = mark(first.getKeyNode());
-                problems.add(mark(t.getKeyNode()), "duplicate key '" + key + "' (first given at line " + a.line()
+                problems.add(mark(t.getKeyNode()), "duplicate key '" + Names.shown(key) + "' (first given at line " + a.line()
                         + ", column " + a.column() + ")");
                 continue;
             }
@@ -125,7 +133,7 @@ final class YamlMap {
         boolean ok = true;
         for (Map.Entry<String, NodeTuple> e : entries.entrySet()) {
             if (!allowed.contains(e.getKey())) {
-                problems.add(mark(e.getValue().getKeyNode()), "unknown key '" + e.getKey() + "' in " + where
+                problems.add(mark(e.getValue().getKeyNode()), "unknown key '" + Names.shown(e.getKey()) + "' in " + where
                         + Names.suggestion(e.getKey(), allowed) + " (valid: " + String.join(", ", allowed) + ")");
                 ok = false;
             }
@@ -168,7 +176,12 @@ final class YamlMap {
         ScalarNode s = (ScalarNode) n;
         String text = s.getValue().trim();
         if (s.getScalarStyle() != DumperOptions.ScalarStyle.PLAIN) {
-            problems.add(mark(n), name + " must be a number, not quoted text: \"" + text + "\"");
+            problems.add(mark(n), name + " must be a number, not quoted text: \"" + Names.shown(text) + "\"");
+            return null;
+        }
+        if (text.length() > MAX_NUMBER_CHARS) {
+            problems.add(mark(n), name + " must be a number of at most " + MAX_NUMBER_CHARS + " characters: "
+                    + Names.shown(text));
             return null;
         }
         String lower = text.toLowerCase(java.util.Locale.ROOT);
@@ -180,7 +193,7 @@ final class YamlMap {
         try {
             value = new BigDecimal(text.startsWith("+") ? text.substring(1) : text);
         } catch (NumberFormatException e) {
-            problems.add(mark(n), name + " must be a number: " + text);
+            problems.add(mark(n), name + " must be a number: " + Names.shown(text));
             return null;
         }
         double d = value.doubleValue();

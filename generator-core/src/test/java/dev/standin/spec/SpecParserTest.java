@@ -415,7 +415,7 @@ class SpecParserTest {
     void output() {
         String c = column("fare_eur: {dist: normal, mean: 48, sd: 9}") + "output:\n";
         assertProblems(c + "  formt: json\n",
-                at(7, 3, "unknown key 'formt' in output; did you mean 'format'? (valid: format, file, header, delimiter, null)"));
+                at(7, 3, "unknown key 'formt' in output; did you mean 'format'? (valid: format, file, header, delimiter, null, guard-formulas)"));
         assertProblems(c + "  format: xml\n", at(7, 11, "output format must be one of csv, json, jsonl: xml"));
         String file = "output file must be a plain file name or a relative path of such names"
                 + " (letters, digits, '.', '_', '-'; no '..', no absolute path): ";
@@ -437,7 +437,8 @@ class SpecParserTest {
         String overwrite = column("fare_eur: {dist: normal, mean: 48, sd: 9}") + "output:\n  file: ferry-crossings.report.json\n";
         SpecException e = assertThrows(SpecException.class,
                 () -> engine.compile(FILE, overwrite.getBytes(StandardCharsets.UTF_8), ""));
-        assertEquals(at(7, 9, "output file ferry-crossings.report.json would overwrite the report; choose another name"), e.getMessage());
+        assertEquals(at(7, 9, "output file ferry-crossings.report.json would clash with the report files"
+                + " (ferry-crossings.report.*, letter case ignored); choose another name"), e.getMessage());
         e = assertThrows(SpecException.class, () -> engine.compile(dir.resolve("missing.yaml"), "specs/missing.yaml", ""));
         assertEquals("specs/missing.yaml:1:1: no such spec file", e.getMessage());
         e = assertThrows(SpecException.class, () -> engine.compile(dir, "specs", ""));
