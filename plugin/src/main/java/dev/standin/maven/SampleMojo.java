@@ -44,7 +44,7 @@ public final class SampleMojo extends AbstractMojo {
 
     /**
      * The spec files to generate, comma-separated, relative to the folder Maven was started in (or
-     * absolute).
+     * absolute). A value in the pom wins over {@code -Dstandin.spec}.
      *
      * @since 0.1.0
      */
@@ -53,7 +53,7 @@ public final class SampleMojo extends AbstractMojo {
 
     /**
      * The folder the data files and reports are written to; by default the folder Maven was started
-     * in.
+     * in. A value in the pom wins over {@code -Dstandin.outputDirectory}.
      *
      * @since 0.1.0
      */
