@@ -36,6 +36,22 @@ public final class UniformMarginal implements Marginal {
     }
 
     @Override
+    public double upperQuantile(double q) {
+        return Math.max(max - (max - min) * q, min);
+    }
+
+    @Override
+    public double survival(double x) {
+        if (x <= min) {
+            return 1.0;
+        }
+        if (x >= max) {
+            return 0.0;
+        }
+        return (max - x) / (max - min);
+    }
+
+    @Override
     public double cdf(double x) {
         if (x <= min) {
             return 0.0;
