@@ -261,6 +261,9 @@ public final class Families {
         if (base instanceof NormalMarginal n) {
             return NormalMarginal.truncated(n.mu(), n.sigma(), min, max);
         }
+        if (base instanceof QuantileTable q) {
+            return q.truncated(min, max);
+        }
         if (base instanceof DiscreteUniform) {
             throw new IllegalArgumentException(base.family() + " columns take from and to, not min and max");
         }

@@ -65,7 +65,7 @@ final class TruncatedContinuous implements Marginal {
         double x;
         if (upperSide) {
             // S(x) = S(min) − p·mass = S(max) + (1 − p)·mass; the second keeps its digits for p near 1
-            x = base.upperQuantile(p <= 0.5 ? qLo - p * mass : qHi + (1.0 - p) * mass);
+            x = base.upperQuantile(tail(p <= 0.5 ? qLo - p * mass : qHi + (1.0 - p) * mass));
         } else {
             double t = pLo + p * mass;
             x = t <= 0.5 ? base.quantile(t) : base.upperQuantile(qHi + (1.0 - p) * mass);
@@ -77,8 +77,16 @@ final class TruncatedContinuous implements Marginal {
     public double upperQuantile(double q) {
         // the truncated upper tail q is the base's upper tail S(max) + q·mass
         double s = qHi + q * mass;
-        double x = s < 0.5 || upperSide ? base.upperQuantile(s) : base.quantile(pHi - q * mass);
+        double x = s < 0.5 || upperSide ? base.upperQuantile(tail(s)) : base.quantile(pHi - q * mass);
         return clamp(x);
+    }
+
+    /**
+     * An upper-tail probability kept above zero: q·mass underflows for a tiny mass (an exponential
+     * on [40, ∞) has mass 4e-18, and fromLatent passes q down to 2e-308), and S<sup>-1</sup>(0) = ∞.
+     */
+    private static double tail(double s) {
+        return Math.max(s, Double.MIN_VALUE);
     }
 
     private double clamp(double x) {
