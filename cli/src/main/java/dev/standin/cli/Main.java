@@ -64,7 +64,7 @@ public final class Main {
 
     /** The commands, in help order. A new command is added here. */
     static List<Command> commands() {
-        return List.of(new GenerateCommand(), new ValidateCommand());
+        return List.of(new GenerateCommand(), new ValidateCommand(), new FitCommand(), new DisclosureCommand());
     }
 
     private static int dispatch(List<String> args, Console console) throws UsageException {

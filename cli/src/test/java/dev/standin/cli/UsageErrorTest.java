@@ -57,13 +57,13 @@ class UsageErrorTest {
                 Arguments.of(List.of("genrate", "g.yaml"),
                         "standin: unknown command: genrate (did you mean generate?)", top),
                 Arguments.of(List.of("shuffle"),
-                        "standin: unknown command: shuffle (commands: generate, validate, help)", top),
+                        "standin: unknown command: shuffle (commands: generate, validate, fit, disclosure, help)", top),
                 Arguments.of(List.of(),
-                        "standin: a command is needed: generate, validate, help", top),
+                        "standin: a command is needed: generate, validate, fit, disclosure, help", top),
                 Arguments.of(List.of("--verison"),
                         "standin: unknown option: --verison (did you mean --version?)", top),
                 Arguments.of(List.of("help", "shuffle"),
-                        "standin: unknown command: shuffle (commands: generate, validate, help)", top));
+                        "standin: unknown command: shuffle (commands: generate, validate, fit, disclosure, help)", top));
     }
 
     @ParameterizedTest
