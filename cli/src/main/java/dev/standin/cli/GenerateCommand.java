@@ -3,6 +3,9 @@ package dev.standin.cli;
 import dev.standin.engine.CompiledSpec;
 import dev.standin.engine.Engine;
 import dev.standin.engine.GenerationResult;
+import dev.standin.engine.OutputSession;
+import dev.standin.output.DirectoryLock;
+import dev.standin.output.OutputBusyException;
 import dev.standin.spec.OutputFormat;
 import dev.standin.spec.Overrides;
 import dev.standin.spec.SpecParser;
@@ -11,12 +14,18 @@ import java.nio.file.FileSystemException;
 import java.nio.file.Files;
 import java.nio.file.InvalidPathException;
 import java.nio.file.Path;
+import java.time.Duration;
 import java.util.List;
 
 /**
  * {@code standin generate SPEC... [--out DIR] [--seed N] [--rows N] [--format F]}: compiles every
  * spec first, and only when all are valid writes each one's data file and report directly into the
  * output directory, printing one summary line per dataset.
+ *
+ * <p>The whole run holds the output directory's lock ({@link DirectoryLock}), so two runs into one
+ * directory take turns: the second says {@code standin: waiting for DIR/.standin.lock (held by
+ * another Standin run)} and fails with exit 1 ("busy") after {@code --wait} seconds. Every spec's
+ * paths are checked against the directory before the first file is written.
  */
 final class GenerateCommand implements Command {
 
@@ -30,6 +39,12 @@ final class GenerateCommand implements Command {
             "write N rows (0 to " + SpecParser.MAX_ROWS + ") instead of each spec's rows");
     private static final Option FORMAT = Option.valued("--format", "csv|json|jsonl",
             "write this format instead of each spec's output format");
+    private static final Option WAIT = Option.valued("--wait", "SECONDS",
+            "wait at most SECONDS (0 to 86400) for another Standin run writing to the same directory (default: "
+                    + DirectoryLock.DEFAULT_WAIT.toSeconds() + ")");
+
+    /** The longest --wait: one day. */
+    static final long MAX_WAIT_SECONDS = 86_400;
 
     @Override
     public String name() {
@@ -48,7 +63,7 @@ final class GenerateCommand implements Command {
 
     @Override
     public List<Option> options() {
-        return List.of(OUT, SEED, ROWS, FORMAT);
+        return List.of(OUT, SEED, ROWS, FORMAT, WAIT);
     }
 
     @Override
@@ -64,6 +79,7 @@ final class GenerateCommand implements Command {
         } catch (InvalidPathException e) {
             throw UsageException.of(NAME, OUT.name() + " must be a valid directory path: " + outText);
         }
+        Duration wait = args.value(WAIT.name()).isPresent() ? waitOption(args.value(WAIT.name()).get()) : DirectoryLock.DEFAULT_WAIT;
         List<String> specs = OptionValues.specs(NAME, args.operands());
 
         Engine engine = Engine.create(new Overrides(seed, rows, format));
@@ -79,28 +95,63 @@ final class GenerateCommand implements Command {
                     + outText + " is not a directory");
             return 1;
         }
-        for (CompiledSpec c : compiled) {
-            GenerationResult result;
+        String shownOut = outText == null ? "." : outText;
+        OutputSession session;
+        try {
+            session = engine.openOutput(outDir, wait, line -> console.err().println("standin: waiting for "
+                    + console.show(outDir.resolve(DirectoryLock.FILE_NAME)) + " (held by another Standin run)"));
+        } catch (OutputBusyException e) {
+            console.err().println("standin: output directory " + shownOut + " is busy: " + console.show(Path.of(e.getFile()))
+                    + " is " + e.getReason());
+            return 1;
+        } catch (IOException e) {
+            console.err().println("standin: cannot write " + shown(outText, compiled.get(0).dataFile()) + ": "
+                    + IoErrors.reason(e, console));
+            return 1;
+        }
+        try (session) {
             try {
-                result = engine.generate(c, outDir);
+                session.check(compiled);
             } catch (IOException e) {
-                console.err().println("standin: cannot write " + shown(outText, failedFile(c, e)) + ": "
-                        + IoErrors.reason(e, console));
+                console.err().println("standin: cannot write into " + shownOut + ": " + IoErrors.reason(e, console));
                 return 1;
             }
-            console.out().println(result.summary());
+            for (CompiledSpec c : compiled) {
+                GenerationResult result;
+                try {
+                    result = session.generate(c, null);
+                } catch (IOException e) {
+                    console.err().println("standin: cannot write " + shown(outText, failedFile(c, e)) + ": "
+                            + IoErrors.reason(e, console));
+                    return 1;
+                }
+                console.out().println(result.summary());
+            }
+        } catch (IOException e) {
+            console.err().println("standin: cannot release " + console.show(outDir.resolve(DirectoryLock.FILE_NAME)) + ": "
+                    + IoErrors.reason(e, console));
+            return 1;
         }
         return 0;
     }
 
-    /** The report when the failure names the report or its temporary file, else the data file. */
+    private static Duration waitOption(String text) throws UsageException {
+        if (!text.matches("[0-9]{1,6}") || Long.parseLong(text) > MAX_WAIT_SECONDS) {
+            throw UsageException.of(NAME, WAIT.name() + " must be a whole number of seconds from 0 to " + MAX_WAIT_SECONDS + ": " + text);
+        }
+        return Duration.ofSeconds(Long.parseLong(text));
+    }
+
+    /** The output file (data file or a report) the failure names, itself or by its temporary file; else the data file. */
     private static String failedFile(CompiledSpec c, IOException e) {
         if (e instanceof FileSystemException fse && fse.getFile() != null) {
             Path failed = Path.of(fse.getFile()).getFileName();
-            String report = c.reportFile().substring(c.reportFile().lastIndexOf('/') + 1);
             String name = failed == null ? "" : failed.toString();
-            if (name.equals(report) || name.startsWith("." + report + ".")) {
-                return c.reportFile();
+            for (String file : c.outputFiles()) {
+                String own = file.substring(file.lastIndexOf('/') + 1);
+                if (name.equals(own) || name.startsWith("." + own + ".")) {
+                    return file;
+                }
             }
         }
         return c.dataFile();

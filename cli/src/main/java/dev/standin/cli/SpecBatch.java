@@ -75,13 +75,16 @@ final class SpecBatch {
     }
 
     /**
-     * Adds a problem to each spec whose data or report file is already written by an earlier spec on
-     * the command line, one line per earlier spec. Paths are compared ignoring case, since on
-     * case-insensitive file systems (the defaults on macOS and Windows) such files would overwrite
-     * each other.
+     * Adds a problem to each spec whose data or report files are already written by an earlier spec
+     * on the command line, or whose data file takes a name of an earlier spec's report family
+     * ({@code <dataset>.report.*} in its folder) or the other way round, one line per earlier spec.
+     * Paths are compared ignoring case, since on case-insensitive file systems (the defaults on macOS
+     * and Windows) such files would overwrite each other.
      */
     private static List<Entry> checkCollisions(List<Entry> entries) {
         Map<String, Claim> claimed = new HashMap<>();
+        List<Claim> reportFamilies = new ArrayList<>();
+        List<Claim> dataFiles = new ArrayList<>();
         List<Entry> checked = new ArrayList<>();
         for (Entry e : entries) {
             if (!e.ok()) {
@@ -91,7 +94,7 @@ final class SpecBatch {
             CompiledSpec c = e.compiled();
             Map<String, List<String>> clashes = new LinkedHashMap<>();
             boolean dataClashes = false;
-            for (String file : List.of(c.dataFile(), c.reportFile())) {
+            for (String file : c.outputFiles()) {
                 Claim earlier = claimed.get(file.toLowerCase(Locale.ROOT));
                 if (earlier != null) {
                     String as = earlier.path().equals(file) ? "" : " (as " + earlier.path() + ")";
@@ -99,9 +102,34 @@ final class SpecBatch {
                     dataClashes |= file.equals(c.dataFile());
                 }
             }
+            String family = reportFamily(c);
+            String data = c.dataFile().toLowerCase(Locale.ROOT);
+            Mark fileMark = c.spec().output().fileMark() != null ? c.spec().output().fileMark() : Mark.startOf(e.name());
+            List<SpecProblem> familyProblems = new ArrayList<>();
+            for (Claim f : reportFamilies) {
+                if (data.startsWith(f.path()) && !clashes.containsKey(f.spec())) {
+                    familyProblems.add(SpecProblem.at(fileMark, "output file " + c.dataFile() + " takes a name of the report files "
+                            + f.path() + "* of " + f.spec() + " (letter case ignored); give one of the two specs another dataset name"
+                            + " or output file"));
+                }
+            }
+            for (Claim d : dataFiles) {
+                if (d.path().toLowerCase(Locale.ROOT).startsWith(family) && !clashes.containsKey(d.spec())) {
+                    familyProblems.add(SpecProblem.at(Mark.startOf(e.name()), "the report files " + family + "* would take the"
+                            + " name of " + d.path() + ", the output file of " + d.spec() + " (letter case ignored); give one of the"
+                            + " two specs another dataset name or output file"));
+                }
+            }
+            if (!familyProblems.isEmpty() && clashes.isEmpty()) {
+                checked.add(new Entry(e.name(), null, familyProblems, null));
+                continue;
+            }
             if (clashes.isEmpty()) {
-                claimed.put(c.dataFile().toLowerCase(Locale.ROOT), new Claim(e.name(), c.dataFile()));
-                claimed.put(c.reportFile().toLowerCase(Locale.ROOT), new Claim(e.name(), c.reportFile()));
+                for (String file : c.outputFiles()) {
+                    claimed.put(file.toLowerCase(Locale.ROOT), new Claim(e.name(), file));
+                }
+                reportFamilies.add(new Claim(e.name(), family));
+                dataFiles.add(new Claim(e.name(), c.dataFile()));
                 checked.add(e);
                 continue;
             }
@@ -109,7 +137,7 @@ final class SpecBatch {
             List<SpecProblem> problems = new ArrayList<>();
             for (Map.Entry<String, List<String>> clash : clashes.entrySet()) {
                 List<String> files = clash.getValue();
-                String what = files.size() == 1 ? "output file " + files.get(0) + " is" : "output files " + String.join(" and ", files) + " are";
+                String what = files.size() == 1 ? "output file " + files.get(0) + " is" : "output files " + listed(files) + " are";
                 String fix = clash.getKey().equals(e.name()) ? "the spec is named twice on the command line"
                         : "give one of the two specs another dataset name or output file";
                 problems.add(SpecProblem.at(at, what + " also written by " + clash.getKey() + "; " + fix));
@@ -120,6 +148,20 @@ final class SpecBatch {
     }
 
     private record Claim(String spec, String path) {
+    }
+
+    /** The lower-case prefix of every name in a spec's report family: {@code dir/<dataset>.report.}. */
+    private static String reportFamily(CompiledSpec c) {
+        String report = c.reportFile();
+        return report.substring(0, report.length() - "json".length()).toLowerCase(Locale.ROOT);
+    }
+
+    /** "a", "a and b", "a, b and c". */
+    private static String listed(List<String> items) {
+        if (items.size() <= 2) {
+            return String.join(" and ", items);
+        }
+        return String.join(", ", items.subList(0, items.size() - 1)) + " and " + items.get(items.size() - 1);
     }
 
     List<Entry> entries() {

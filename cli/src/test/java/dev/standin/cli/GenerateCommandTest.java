@@ -31,7 +31,8 @@ class GenerateCommandTest {
         assertEquals(0, run.exit(), run.err());
         assertEquals("", run.err());
         Path out = dir.resolve("out");
-        assertEquals(List.of("greenhouse-readings.csv", "greenhouse-readings.report.json"), CliRun.filesUnder(out));
+        assertEquals(List.of("greenhouse-readings.csv", "greenhouse-readings.report.html", "greenhouse-readings.report.json"),
+                CliRun.filesUnder(out));
         Path csv = out.resolve("greenhouse-readings.csv");
         List<String> lines = Files.readAllLines(csv, StandardCharsets.UTF_8);
         assertEquals(51, lines.size(), "header + rows: 50");
@@ -66,7 +67,7 @@ class GenerateCommandTest {
         assertEquals(0, here.exit(), here.err());
         assertEquals(0, equalsForm.exit(), equalsForm.err());
         assertTrue(Files.isRegularFile(dir.resolve("greenhouse-readings.csv")));
-        assertEquals(List.of("greenhouse-readings.csv", "greenhouse-readings.report.json"),
+        assertEquals(List.of("greenhouse-readings.csv", "greenhouse-readings.report.html", "greenhouse-readings.report.json"),
                 CliRun.filesUnder(dir.resolve("elsewhere/deeper")));
     }
 
@@ -78,7 +79,8 @@ class GenerateCommandTest {
 
         assertEquals(0, run.exit(), run.err());
         Path out = dir.resolve("out");
-        assertEquals(List.of("greenhouse-readings.jsonl", "greenhouse-readings.report.json"), CliRun.filesUnder(out));
+        assertEquals(List.of("greenhouse-readings.jsonl", "greenhouse-readings.report.html", "greenhouse-readings.report.json"),
+                CliRun.filesUnder(out));
         List<String> lines = Files.readAllLines(out.resolve("greenhouse-readings.jsonl"), StandardCharsets.UTF_8);
         assertEquals(7, lines.size());
         for (String line : lines) {
@@ -154,7 +156,7 @@ class GenerateCommandTest {
         CliRun run = CliRun.in(dir, "generate", "north/house.yaml", "south/house.yaml", "--out", "out");
 
         assertEquals(2, run.exit());
-        assertEquals(List.of("south/house.yaml:1:1: output files greenhouse-readings.csv and greenhouse-readings.report.json"
+        assertEquals(List.of("south/house.yaml:1:1: output files greenhouse-readings.csv, greenhouse-readings.report.json and greenhouse-readings.report.html"
                 + " are also written by north/house.yaml; give one of the two specs another dataset name or output file"),
                 run.errLines());
         assertFalse(Files.exists(dir.resolve("out")));

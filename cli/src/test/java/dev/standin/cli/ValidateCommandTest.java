@@ -55,7 +55,7 @@ class ValidateCommandTest {
 
         assertEquals(2, run.exit());
         assertEquals("a.yaml: ok\n", run.out());
-        assertEquals(List.of("b.yaml:1:1: output files same-house.csv and same-house.report.json are also written by a.yaml;"
+        assertEquals(List.of("b.yaml:1:1: output files same-house.csv, same-house.report.json and same-house.report.html are also written by a.yaml;"
                 + " give one of the two specs another dataset name or output file"), run.errLines());
     }
 }

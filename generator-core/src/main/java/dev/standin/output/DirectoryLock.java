@@ -143,6 +143,10 @@ public final class DirectoryLock implements AutoCloseable {
 
     /** Opens the lock file without following a link in its place; null while a deleted one lingers (Windows). */
     private static FileChannel open(Path file) throws IOException {
+        if (Files.isSymbolicLink(file)) {
+            throw new java.nio.file.FileSystemException(file.toString(), null,
+                    "is a symbolic link; the lock file must be a plain file (remove the link)");
+        }
         try {
             return FileChannel.open(file, StandardOpenOption.CREATE, StandardOpenOption.WRITE, LinkOption.NOFOLLOW_LINKS);
         } catch (AccessDeniedException e) {
