@@ -39,6 +39,8 @@ import java.util.regex.Pattern;
  *   extremes are single records.</li>
  *   <li><b>Coarse quantile tables.</b> A column that no family fits gets deciles only. Reason: a fine
  *   table would approach the sorted data itself.</li>
+ *   <li><b>Formula guard.</b> The spec turns on {@code guard-formulas} in its output block. Reason: a
+ *   stand-in is often opened in a spreadsheet, where a label such as {@code =HYPERLINK(...)} would run.</li>
  * </ul>
  * These reduce but do not remove disclosure risk ({@link FitResult#CAUTION}); the fitted spec's sample
  * is checked by {@link DisclosureCheck}.
@@ -47,12 +49,6 @@ public final class Fitter {
 
     /** The level of the KS test that rejects a family (Kolmogorov's distribution). */
     public static final double KS_ALPHA = 0.001;
-
-    /**
-     * Whether the spec format has the {@code guard-formulas} output key; fitted specs then turn it on
-     * (see {@link SpecText#GUARD_FORMULAS}).
-     */
-    static final boolean GUARD_FORMULAS_AVAILABLE = false;
 
     /** The most columns in one correlation block (the spec parser's limit). */
     static final int MAX_CORRELATED = 500;
@@ -111,7 +107,7 @@ public final class Fitter {
             throw FitException.at(table.file(), 1, 1, "no column can be modelled (each is empty, free text or has too few"
                     + " rows per value); nothing to fit");
         }
-        String text = SpecText.write(table, dataset, rows, seed, columns, dep, GUARD_FORMULAS_AVAILABLE);
+        String text = SpecText.write(table, dataset, rows, seed, columns, dep);
         return new FitResult(text, dataset, rows, seed, table.size(), columns, dep, notes);
     }
 

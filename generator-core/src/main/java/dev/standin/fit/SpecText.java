@@ -1,22 +1,17 @@
 package dev.standin.fit;
 
 import dev.standin.output.NumberText;
+import dev.standin.spec.SpecParser;
 import java.util.List;
 
 /** Writes a fitted spec: the header comment, the columns with their fit comments, the correlation block. */
 final class SpecText {
 
-    /**
-     * The output key that guards formula-like CSV text, when the spec format has it. Reason: a fitted
-     * stand-in is often opened in a spreadsheet, and a label such as {@code =1+2} would be evaluated.
-     */
-    static final String GUARD_FORMULAS = "guard-formulas";
-
     private SpecText() {
     }
 
     static String write(CsvTable table, String dataset, long rows, long seed, List<ColumnFit> columns,
-                        Dependence.Result dep, boolean guardFormulas) {
+                        Dependence.Result dep) {
         StringBuilder sb = new StringBuilder();
         String source = table.file().replace('\\', '/');
         source = source.substring(source.lastIndexOf('/') + 1);
@@ -104,9 +99,8 @@ final class SpecText {
         sb.append("\noutput:\n");
         sb.append("  format: csv\n");
         sb.append("  header: true\n");
-        if (guardFormulas) {
-            sb.append("  ").append(GUARD_FORMULAS).append(": true\n");
-        }
+        // the formula guard: a stand-in is often opened in a spreadsheet (see Fitter's safeguards)
+        sb.append("  ").append(SpecParser.GUARD_FORMULAS).append(": true\n");
         return sb.toString();
     }
 
