@@ -81,8 +81,8 @@ class ConcurrentRunsTest {
         List<Path> specsA = new ArrayList<>();
         List<Path> specsB = new ArrayList<>();
         for (String d : datasets) {
-            specsA.add(spec(dir, d + "-a.yaml", d, 11, 40_000));
-            specsB.add(spec(dir, d + "-b.yaml", d, 22, 40_000));
+            specsA.add(spec(dir, d + "-a.yaml", d, 11, 5_000));
+            specsB.add(spec(dir, d + "-b.yaml", d, 22, 5_000));
         }
         try (ChildJvm a = ChildJvm.start("generate", out, 120_000, "-", specsA.toArray(Path[]::new));
              ChildJvm b = ChildJvm.start("generate", out, 120_000, "-", specsB.toArray(Path[]::new))) {
@@ -99,7 +99,7 @@ class ConcurrentRunsTest {
             }
             // the runs took turns for the whole batch, so all three pairs come from the same run
             assertEquals(seed, s, "pairs from different runs: " + d);
-            assertPair(out, d, s, 40_000);
+            assertPair(out, d, s, 5_000);
         }
         try (var s = Files.list(out)) {
             assertEquals(6, s.count(), "three data files and three reports, no temporaries, no lock file");

@@ -39,7 +39,7 @@ import org.junit.jupiter.api.io.TempDir;
 class SpecFuzzTest {
 
     private static final Path SPECS = Path.of("../example-specs/specs");
-    private static final int TOTAL_CASES = 2400;
+    private static final int TOTAL_CASES = 2000;
     private static final long SEED = 0x5EED_F022L;
     private static final Duration HANG_GUARD = Duration.ofSeconds(20);
 
