@@ -3,6 +3,8 @@ package dev.standin.maven;
 import dev.standin.engine.CompiledSpec;
 import dev.standin.engine.Engine;
 import dev.standin.engine.GenerationResult;
+import dev.standin.engine.OutputSession;
+import dev.standin.output.DirectoryLock;
 import dev.standin.spec.Mark;
 import dev.standin.spec.OutputFormat;
 import dev.standin.spec.Overrides;
@@ -250,10 +252,17 @@ public final class PluginBridge {
         Map<String, BuildState.SpecState> next = new TreeMap<>(previous.specs());
         List<GenerationResult> results = new ArrayList<>();
         boolean done = false;
+        OutputSession session = null;
         try {
+            // The output folder is locked only when something is written or deleted, so an up-to-date
+            // build leaves it as it was.
+            if (!pending.isEmpty() || hasStale(previous, claimed, out)) {
+                session = open(engine == null ? Engine.create(overrides) : engine, out);
+                check(session, pending.stream().map(Pending::compiled).collect(Collectors.toList()));
+            }
             for (Pending p : pending) {
                 String name = p.source().displayName();
-                GenerationResult result = generate(engine, p.compiled(), out);
+                GenerationResult result = generate(session, p.compiled());
                 List<BuildState.FileState> files = written(p.compiled(), result, out);
                 for (BuildState.FileState f : files) {
                     log.debug("  " + f.path() + ": " + f.bytes() + " bytes, SHA-256 " + f.sha256());
@@ -276,7 +285,11 @@ public final class PluginBridge {
             }
             done = true;
         } finally {
-            saveState(request.stateFile(), BuildState.of(out, next), done);
+            try {
+                saveState(request.stateFile(), BuildState.of(out, next), done);
+            } finally {
+                close(session, out, done);
+            }
         }
         if (project != null && !specs.isEmpty()) {
             addTestResourceRoot(project, out);
@@ -635,30 +648,86 @@ public final class PluginBridge {
             throw new MojoFailureException(problems.stream().map(SpecProblem::toString).collect(Collectors.joining("\n")));
         }
         List<GenerationResult> results = new ArrayList<>();
-        for (CompiledSpec c : compiled) {
-            GenerationResult result = generate(engine, c, outputRoot);
-            if (log.isDebugEnabled()) {
-                for (BuildState.FileState f : written(c, result, outputRoot)) {
-                    log.debug("  " + f.path() + ": " + f.bytes() + " bytes, SHA-256 " + f.sha256());
+        OutputSession session = open(engine, outputRoot);
+        boolean done = false;
+        try {
+            check(session, compiled);
+            for (CompiledSpec c : compiled) {
+                GenerationResult result = generate(session, c);
+                if (log.isDebugEnabled()) {
+                    for (BuildState.FileState f : written(c, result, outputRoot)) {
+                        log.debug("  " + f.path() + ": " + f.bytes() + " bytes, SHA-256 " + f.sha256());
+                    }
                 }
+                results.add(result);
             }
-            results.add(result);
+            done = true;
+        } finally {
+            close(session, outputRoot, done);
         }
         return List.copyOf(results);
     }
 
     /**
-     * Generates one compiled spec, logging a progress line every {@link ProgressLog#INTERVAL_NANOS}
-     * and then the summary line with the time taken.
+     * Locks the output folder for this run through the engine (another Standin run into the same
+     * folder is waited for, with one line saying so).
      */
-    private GenerationResult generate(Engine engine, CompiledSpec c, Path outputRoot) throws MojoExecutionException {
+    private OutputSession open(Engine engine, Path outputRoot) throws MojoExecutionException {
+        try {
+            return engine.openOutput(outputRoot, DirectoryLock.DEFAULT_WAIT, log::info);
+        } catch (IOException e) {
+            throw new MojoExecutionException("cannot write " + pathOf(e, outputRoot) + ": " + reason(e), e);
+        }
+    }
+
+    /** Checks every spec's output paths before the first file is written. */
+    private static void check(OutputSession session, List<CompiledSpec> compiled) throws MojoExecutionException {
+        try {
+            session.check(compiled);
+        } catch (IOException e) {
+            throw new MojoExecutionException("cannot write " + pathOf(e, session.root()) + ": " + reason(e), e);
+        }
+    }
+
+    /** Releases the output folder; a failure to do so after another failure is only logged. */
+    private void close(OutputSession session, Path outputRoot, boolean succeeded) throws MojoExecutionException {
+        if (session == null) {
+            return;
+        }
+        try {
+            session.close();
+        } catch (IOException e) {
+            if (succeeded) {
+                throw new MojoExecutionException("cannot release " + pathOf(e, outputRoot) + ": " + reason(e), e);
+            }
+            log.warn("Cannot release " + pathOf(e, outputRoot) + ": " + reason(e));
+        }
+    }
+
+    /** True when a file of the previous state that no current spec claims is still there (it is to be deleted). */
+    private static boolean hasStale(BuildState previous, Set<String> claimed, Path out) {
+        for (BuildState.SpecState s : previous.specs().values()) {
+            for (BuildState.FileState f : s.files()) {
+                Path p = inside(out, f.path());
+                if (!claimed.contains(f.path().toLowerCase(Locale.ROOT)) && p != null && Files.exists(p)) {
+                    return true;
+                }
+            }
+        }
+        return false;
+    }
+
+    /**
+     * Generates one compiled spec in the run's session, logging a progress line every
+     * {@link ProgressLog#INTERVAL_NANOS} and then the summary line with the time taken.
+     */
+    private GenerationResult generate(OutputSession session, CompiledSpec c) throws MojoExecutionException {
         long start = System.nanoTime();
         GenerationResult result;
         try {
-            result = engine.generate(c, outputRoot, ProgressLog.of(c.spec().dataset(), c.spec().rows(), log::info,
-                    System::nanoTime));
+            result = session.generate(c, ProgressLog.of(c.spec().dataset(), c.spec().rows(), log::info, System::nanoTime));
         } catch (IOException e) {
-            throw new MojoExecutionException("cannot write " + pathOf(e, outputRoot.resolve(c.dataFile())) + ": "
+            throw new MojoExecutionException("cannot write " + pathOf(e, session.root().resolve(c.dataFile())) + ": "
                     + reason(e), e);
         }
         log.info(summaryLine(result, System.nanoTime() - start));
