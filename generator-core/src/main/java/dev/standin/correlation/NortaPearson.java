@@ -8,6 +8,7 @@ import java.util.List;
 import org.apache.commons.math3.analysis.integration.gauss.GaussIntegrator;
 import org.apache.commons.math3.analysis.integration.gauss.GaussIntegratorFactory;
 import org.apache.commons.math3.analysis.solvers.BrentSolver;
+import org.apache.commons.math3.exception.NoBracketingException;
 import org.apache.commons.math3.exception.TooManyEvaluationsException;
 
 /**
@@ -103,6 +104,11 @@ public final class NortaPearson {
         final double[] thresholds;
         final double mean;
         final double sd;
+
+        /** True when the values are constant to rounding error, so no correlation is defined. */
+        boolean constant() {
+            return !linear && !(sd > 1e-12 * Math.max(1.0, Math.abs(mean)));
+        }
 
         Side(Marginal m) {
             this.m = m;
@@ -207,6 +213,13 @@ public final class NortaPearson {
         }
         Side sa = new Side(a);
         Side sb = new Side(b);
+        if (sa.constant() || sb.constant()) {
+            // a column that is constant to rounding error carries no correlation: only 0 is attainable
+            if (target != 0.0) {
+                throw new UnattainableException(0.0, 0.0);
+            }
+            return 0.0;
+        }
         if (sa.linear || sb.linear) {
             double slope = steinSlope(sa.linear ? sb : sa);
             if (Math.abs(target) > Math.abs(slope)) {
@@ -228,8 +241,9 @@ public final class NortaPearson {
         BrentSolver solver = new BrentSolver(1e-13, 1e-13);
         try {
             return solver.solve(200, r -> correlation(sa, sb, r) - target, -1.0, 1.0, 0.0);
-        } catch (TooManyEvaluationsException e) {
-            throw new IllegalStateException("NORTA root finding did not converge", e);
+        } catch (TooManyEvaluationsException | NoBracketingException e) {
+            // quadrature noise at the ends of a degenerate pair: no latent in (−1, 1) reaches the target
+            throw new UnattainableException(low, high);
         }
     }
 

@@ -66,7 +66,12 @@ public final class RankTargets {
         if (tau == high) {
             return 1.0;
         }
-        return new BrentSolver(1e-12, 1e-12).solve(200, r -> tauB(ta, tb, r) - tau, -1.0, 1.0, 0.0);
+        try {
+            return new BrentSolver(1e-12, 1e-12).solve(200, r -> tauB(ta, tb, r) - tau, -1.0, 1.0, 0.0);
+        } catch (org.apache.commons.math3.exception.NoBracketingException
+                 | org.apache.commons.math3.exception.TooManyEvaluationsException e) {
+            throw new NortaPearson.UnattainableException(low, high);
+        }
     }
 
     /** Kendall's τ (τ<sub>b</sub> with a discrete column) of the values under latent correlation r. */

@@ -10,8 +10,9 @@ import java.nio.charset.StandardCharsets;
  * and Vo; IETF draft-eastlake-fnv) followed by the SplitMix64 finaliser (Steele, Lea and Flood,
  * "Fast splittable pseudorandom number generators", OOPSLA 2014) so that similar names give
  * unrelated streams. The Philox4x32-10 block for key = seed and counter = (row, stream) gives 64
- * bits, of which the top 53 make a uniform in the open interval (0, 1): {@code (bits >>> 11) + 0.5}
- * times 2<sup>-53</sup>. No state is carried from row to row, so any row range is generated
+ * bits, of which the top 52 make a uniform in the open interval (0, 1): {@code (bits >>> 12) + 0.5}
+ * times 2<sup>-52</sup>, so the values run from 2<sup>-53</sup> to 1 − 2<sup>-53</sup>, all exactly
+ * representable (with 53 bits, (2<sup>53</sup> − 1 + 0.5)·2<sup>-53</sup> would round to 1.0). No state is carried from row to row, so any row range is generated
  * exactly as in a whole run, and a column's values do not depend on other columns.
  */
 public final class RandomStreams {
@@ -28,7 +29,7 @@ public final class RandomStreams {
         }
     }
 
-    private static final double TWO_POW_M53 = 0x1.0p-53;
+    private static final double TWO_POW_M52 = 0x1.0p-52;
 
     private RandomStreams() {
     }
@@ -55,6 +56,6 @@ public final class RandomStreams {
     /** The uniform in (0, 1) for (seed, stream, row). */
     public static double uniform(long seed, long stream, long row) {
         long bits = Philox4x32.bits64(seed, row, stream);
-        return ((bits >>> 11) + 0.5) * TWO_POW_M53;
+        return ((bits >>> 12) + 0.5) * TWO_POW_M52;
     }
 }

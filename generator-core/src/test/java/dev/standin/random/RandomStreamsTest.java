@@ -33,10 +33,19 @@ class RandomStreamsTest {
         for (long row = 0; row < N; row++) {
             double u = RandomStreams.uniform(424242L, stream, row);
             assertTrue(u > 0.0 && u < 1.0, "u = " + u);
-            // (k + 0.5)·2^-53 for an integer k in [0, 2^53): u·2^53 − 0.5 is a whole number
-            double k = u * 0x1.0p53 - 0.5;
+            // (k + 0.5)·2^-52 for an integer k in [0, 2^52): u·2^52 − 0.5 is a whole number
+            double k = u * 0x1.0p52 - 0.5;
             assertEquals(Math.rint(k), k, 0.0);
         }
+    }
+
+    @Test
+    void extremeBitsStayInsideTheOpenInterval() {
+        // the largest 52-bit value gives (2^52 − 1 + 0.5)·2^-52 = 1 − 2^-53, the largest double below 1
+        // (IEEE 754 binary64: the spacing just below 1 is 2^-53); the smallest gives 2^-53
+        assertEquals(1.0 - 0x1.0p-53, ((0xFFFFFFFFFFFFFFFFL >>> 12) + 0.5) * 0x1.0p-52, 0.0);
+        assertTrue(((0xFFFFFFFFFFFFFFFFL >>> 12) + 0.5) * 0x1.0p-52 < 1.0);
+        assertEquals(0x1.0p-53, ((0L >>> 12) + 0.5) * 0x1.0p-52, 0.0);
     }
 
     @Test
