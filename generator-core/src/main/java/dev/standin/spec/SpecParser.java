@@ -46,9 +46,10 @@ public final class SpecParser {
 
     /**
      * The most columns one correlation block may involve. The target, its completion and repair are
-     * dense k × k matrices with O(k³) eigen-decompositions per repair iteration, and NORTA solves one
-     * root per pair; at 500 columns that is 124,750 pairs and seconds per decomposition, so larger
-     * blocks are refused rather than left to run for hours.
+     * dense k × k matrices with O(k³) work per iteration, and NORTA solves one root per pair (124,750
+     * pairs at 500 columns), so larger blocks are refused outright. The cost below the limit depends
+     * on how many pairs are left free: completing a 100-column chain of pairs (4,851 free pairs) took
+     * about 15 s on a 2-core machine, so a block near the limit with few pairs given runs for a long time.
      */
     public static final int MAX_CORRELATED = 500;
 
