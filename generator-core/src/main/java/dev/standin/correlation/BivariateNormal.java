@@ -16,17 +16,24 @@ import org.apache.commons.math3.util.FastMath;
 public final class BivariateNormal {
 
     private static final int PIECES = 8;
-    private final double[] x;
-    private final double[] w;
+    // the rule is computed once: immutable after class initialisation, shared by every thread
+    private static final double[] X;
+    private static final double[] W;
+
+    static {
+        GaussIntegrator rule = new GaussIntegratorFactory().legendre(20, 0, 1);
+        X = new double[rule.getNumberOfPoints()];
+        W = new double[X.length];
+        for (int i = 0; i < X.length; i++) {
+            X[i] = rule.getPoint(i);
+            W[i] = rule.getWeight(i);
+        }
+    }
+
+    private final double[] x = X;
+    private final double[] w = W;
 
     public BivariateNormal() {
-        GaussIntegrator rule = new GaussIntegratorFactory().legendre(20, 0, 1);
-        x = new double[rule.getNumberOfPoints()];
-        w = new double[x.length];
-        for (int i = 0; i < x.length; i++) {
-            x[i] = rule.getPoint(i);
-            w[i] = rule.getWeight(i);
-        }
     }
 
     public double cdf(double h, double k, double r) {

@@ -47,30 +47,39 @@ public final class NortaPearson {
     /** Discrete marginals with more support points than this are integrated as smooth functions. */
     static final int MAX_STEPS = 400;
 
-    private final double[] z;
-    private final double[] w;
-    private final double[] legendreX;
-    private final double[] legendreW;
-    private final BivariateNormal bvn = new BivariateNormal();
+    // quadrature rules, computed once: immutable after class initialisation, shared by every thread
+    private static final double[] Z;
+    private static final double[] W;
+    private static final double[] LEGENDRE_X;
+    private static final double[] LEGENDRE_W;
 
-    public NortaPearson() {
+    static {
         GaussIntegrator rule = new GaussIntegratorFactory().hermite(POINTS);
         int n = rule.getNumberOfPoints();
-        z = new double[n];
-        w = new double[n];
+        Z = new double[n];
+        W = new double[n];
         double sqrt2 = StrictMath.sqrt(2.0);
         double sqrtPi = StrictMath.sqrt(Math.PI);
         for (int i = 0; i < n; i++) {
-            z[i] = sqrt2 * rule.getPoint(i);
-            w[i] = rule.getWeight(i) / sqrtPi;
+            Z[i] = sqrt2 * rule.getPoint(i);
+            W[i] = rule.getWeight(i) / sqrtPi;
         }
         GaussIntegrator legendre = new GaussIntegratorFactory().legendre(16, 0, 1);
-        legendreX = new double[legendre.getNumberOfPoints()];
-        legendreW = new double[legendreX.length];
-        for (int i = 0; i < legendreX.length; i++) {
-            legendreX[i] = legendre.getPoint(i);
-            legendreW[i] = legendre.getWeight(i);
+        LEGENDRE_X = new double[legendre.getNumberOfPoints()];
+        LEGENDRE_W = new double[LEGENDRE_X.length];
+        for (int i = 0; i < LEGENDRE_X.length; i++) {
+            LEGENDRE_X[i] = legendre.getPoint(i);
+            LEGENDRE_W[i] = legendre.getWeight(i);
         }
+    }
+
+    private final double[] z = Z;
+    private final double[] w = W;
+    private final double[] legendreX = LEGENDRE_X;
+    private final double[] legendreW = LEGENDRE_W;
+    private final BivariateNormal bvn = new BivariateNormal();
+
+    public NortaPearson() {
     }
 
     /** The target is outside what these two marginals can reach under a Gaussian copula. */
