@@ -59,7 +59,8 @@ public final class SpecParser {
     private static final Pattern DATASET = Pattern.compile("[a-z0-9][a-z0-9_-]*");
     private static final int MAX_NAME_LENGTH = 128;
     private static final List<String> TOP_KEYS = List.of("dataset", "rows", "seed", "columns", "correlation", "output");
-    private static final List<String> OUTPUT_KEYS = List.of("format", "file", "header", "delimiter", "null", GUARD_FORMULAS);
+    private static final List<String> OUTPUT_KEYS = List.of("format", "file", "header", "delimiter", "null", GUARD_FORMULAS,
+            "report");
 
     private final Overrides overrides;
 
@@ -194,7 +195,7 @@ public final class SpecParser {
         OutputSpec output = top.has("output") ? readOutput(file, problems, top.get("output")) : OutputSpec.defaults();
         if (output != null && overrides.format() != null) {
             output = new OutputSpec(overrides.format(), output.file(), output.fileMark(), output.header(),
-                    output.delimiter(), output.nullText(), output.guardFormulas());
+                    output.delimiter(), output.nullText(), output.guardFormulas(), output.htmlReport());
         }
         if (!complete || dataset == null || rows == null || seed == null || columns == null || output == null
                 || !problems.isEmpty()) {
@@ -284,6 +285,7 @@ public final class SpecParser {
         }
         Boolean header = m.bool("header");
         Boolean guard = m.bool(GUARD_FORMULAS);
+        Boolean report = m.bool("report");
         char delimiter = ',';
         String d = m.string("delimiter");
         if (d != null) {
@@ -310,7 +312,8 @@ public final class SpecParser {
             return null;
         }
         return new OutputSpec(format, outFile, outFile == null ? null : m.valueMark("file"),
-                header == null || header, delimiter, nullText == null ? "" : nullText, guard != null && guard);
+                header == null || header, delimiter, nullText == null ? "" : nullText, guard != null && guard,
+                report == null || report);
     }
 
     private static final Pattern WINDOWS_DEVICE = Pattern.compile("(con|prn|aux|nul|com[1-9]|lpt[1-9])(\\..*)?",
