@@ -415,7 +415,7 @@ class SpecParserTest {
     void output() {
         String c = column("fare_eur: {dist: normal, mean: 48, sd: 9}") + "output:\n";
         assertProblems(c + "  formt: json\n",
-                at(7, 3, "unknown key 'formt' in output; did you mean 'format'? (valid: format, file, header, delimiter, null, guard-formulas)"));
+                at(7, 3, "unknown key 'formt' in output; did you mean 'format'? (valid: format, file, header, delimiter, null, guard-formulas, report)"));
         assertProblems(c + "  format: xml\n", at(7, 11, "output format must be one of csv, json, jsonl: xml"));
         String file = "output file must be a plain file name or a relative path of such names"
                 + " (letters, digits, '.', '_', '-'; no '..', no absolute path): ";
