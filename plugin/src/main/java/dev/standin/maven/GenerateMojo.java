@@ -135,6 +135,27 @@ public final class GenerateMojo extends AbstractMojo {
     @Parameter(property = "standin.force", defaultValue = "false")
     private boolean force;
 
+    /**
+     * Fails the build when a fidelity check of the written data fails (a column's mean, sd, missing
+     * fraction or distribution, or a pair's correlation, outside its sampling-theory tolerance), naming
+     * the dataset, the column or pair and the numbers; {@code false} only warns. The files are written
+     * either way. {@code -Dstandin.failOnDeviation} wins over a value in the pom.
+     *
+     * @since 0.1.0
+     */
+    @Parameter(property = "standin.failOnDeviation", defaultValue = "true")
+    private boolean failOnDeviation;
+
+    /**
+     * Writes {@code <dataset>.report.html} beside each data file (a spec's {@code output.report: false}
+     * also switches it off); the JSON report is always written. {@code -Dstandin.report} wins over a
+     * value in the pom.
+     *
+     * @since 0.1.0
+     */
+    @Parameter(property = "standin.report", defaultValue = "true")
+    private boolean report;
+
     /** The project whose test resources receive the output folder. */
     @Parameter(defaultValue = "${project}", readonly = true, required = true)
     private MavenProject project;
@@ -164,7 +185,10 @@ public final class GenerateMojo extends AbstractMojo {
                 .skipped(skipFlag.on() ? CommandLine.reason(PluginBridge.SKIP_PROPERTY, skipFlag) : null)
                 .forced(forceFlag.on() ? CommandLine.reason(PluginBridge.FORCE_PROPERTY, forceFlag) : null)
                 .withState(stateFile(), code());
-        PluginBridge.withLog(getLog()).generateGoal(request, project);
+        PluginBridge.withLog(getLog())
+                .configured(CommandLine.flag(user, PluginBridge.REPORT_PROPERTY, report).on(),
+                        CommandLine.flag(user, PluginBridge.FAIL_ON_DEVIATION_PROPERTY, failOnDeviation).on())
+                .generateGoal(request, project);
     }
 
     /** {@code target/maven-status/standin-maven-plugin/generate/<execution id>/state.json}. */

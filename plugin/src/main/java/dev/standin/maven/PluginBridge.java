@@ -142,15 +142,53 @@ public final class PluginBridge {
         }
     }
 
-    private final Log log;
+    /** The property that keeps a build green when a fidelity check fails. */
+    public static final String FAIL_ON_DEVIATION_PROPERTY = "standin.failOnDeviation";
 
-    private PluginBridge(Log log) {
+    /** The property that switches the HTML report off. */
+    public static final String REPORT_PROPERTY = "standin.report";
+
+    private final Log log;
+    private final boolean htmlReport;
+    private final boolean failOnDeviation;
+
+    private PluginBridge(Log log, boolean htmlReport, boolean failOnDeviation) {
         this.log = Objects.requireNonNull(log, "log");
+        this.htmlReport = htmlReport;
+        this.failOnDeviation = failOnDeviation;
     }
 
-    /** A bridge that reports through the given goal log. */
+    /** A bridge that reports through the given goal log: HTML reports on, failing on deviations. */
     public static PluginBridge withLog(Log log) {
-        return new PluginBridge(log);
+        return new PluginBridge(log, true, true);
+    }
+
+    /**
+     * This bridge writing {@code <dataset>.report.html} or not (each spec's {@code output.report}
+     * must also be on), and failing the build when a fidelity check fails or only warning.
+     */
+    public PluginBridge configured(boolean htmlReport, boolean failOnDeviation) {
+        return new PluginBridge(log, htmlReport, failOnDeviation);
+    }
+
+    private Engine engine(Overrides overrides) {
+        Engine engine = Engine.create(overrides);
+        return htmlReport ? engine : engine.withoutHtmlReport();
+    }
+
+    /**
+     * Fails the build, when {@code failOnDeviation} is on, if a fidelity check failed: one line per
+     * failed check, naming the dataset, the column or pair, and the numbers.
+     */
+    void failOnDeviations(List<GenerationResult> results) throws MojoFailureException {
+        List<String> lines = new ArrayList<>();
+        for (GenerationResult r : results) {
+            r.failedChecks().forEach(check -> lines.add(r.dataset() + ": " + check.describe()));
+        }
+        if (failOnDeviation && !lines.isEmpty()) {
+            throw new MojoFailureException(lines.size() + " fidelity check(s) failed (the files are written; set -D"
+                    + FAIL_ON_DEVIATION_PROPERTY + "=false to keep the build green):\n" + String.join("\n", lines));
+        }
     }
 
     /**
@@ -194,6 +232,7 @@ public final class PluginBridge {
             return List.of();
         }
         Map<String, String> configuration = configuration(request.code(), overrides);
+        configuration.put("htmlReport", Boolean.toString(htmlReport));
 
         // 1. Decide what is up to date, and compile everything else before writing anything.
         record Pending(SpecSource source, CompiledSpec compiled) {
@@ -218,7 +257,7 @@ public final class PluginBridge {
             }
             log.debug(name + ": to generate (" + why + ")");
             if (engine == null) {
-                engine = Engine.create(overrides);
+                engine = engine(overrides);
             }
             try {
                 CompiledSpec compiled = bytes == null
@@ -257,7 +296,7 @@ public final class PluginBridge {
             // The output folder is locked only when something is written or deleted, so an up-to-date
             // build leaves it as it was.
             if (!pending.isEmpty() || hasStale(previous, claimed, out)) {
-                session = open(engine == null ? Engine.create(overrides) : engine, out);
+                session = open(engine == null ? engine(overrides) : engine, out);
                 check(session, pending.stream().map(Pending::compiled).collect(Collectors.toList()));
             }
             for (Pending p : pending) {
@@ -271,6 +310,10 @@ public final class PluginBridge {
                         configuration, files));
                 if (before != null) {
                     removeStale(out, before.files(), claimed, "no longer written by " + name);
+                }
+                if (failOnDeviation && !result.failedChecks().isEmpty()) {
+                    // not recorded as up to date: the next build regenerates it and fails the same way
+                    next.put(name, new BuildState.SpecState("failed fidelity checks", configuration, files));
                 }
                 results.add(result);
             }
@@ -294,6 +337,7 @@ public final class PluginBridge {
         if (project != null && !specs.isEmpty()) {
             addTestResourceRoot(project, out);
         }
+        failOnDeviations(results);
         return List.copyOf(results);
     }
 
@@ -629,7 +673,7 @@ public final class PluginBridge {
      */
     public List<GenerationResult> run(List<SpecSource> specs, Path outputRoot, Overrides overrides)
             throws MojoFailureException, MojoExecutionException {
-        Engine engine = Engine.create(overrides);
+        Engine engine = engine(overrides);
         List<CompiledSpec> compiled = new ArrayList<>();
         List<SpecProblem> problems = new ArrayList<>();
         for (SpecSource source : specs) {
@@ -665,6 +709,7 @@ public final class PluginBridge {
         } finally {
             close(session, outputRoot, done);
         }
+        failOnDeviations(results);
         return List.copyOf(results);
     }
 

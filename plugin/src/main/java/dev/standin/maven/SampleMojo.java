@@ -87,6 +87,23 @@ public final class SampleMojo extends AbstractMojo {
     @Parameter(property = "standin.format")
     private String format;
 
+    /**
+     * Fails the build when a fidelity check of the written data fails; {@code false} only warns. The
+     * files are written either way.
+     *
+     * @since 0.1.0
+     */
+    @Parameter(property = "standin.failOnDeviation", defaultValue = "true")
+    private boolean failOnDeviation;
+
+    /**
+     * Writes {@code <dataset>.report.html} beside each data file; the JSON report is always written.
+     *
+     * @since 0.1.0
+     */
+    @Parameter(property = "standin.report", defaultValue = "true")
+    private boolean report;
+
     /** The build, for the {@code -D} user properties that win over the pom. */
     @Parameter(defaultValue = "${session}", readonly = true)
     private MavenSession session;
@@ -99,7 +116,10 @@ public final class SampleMojo extends AbstractMojo {
     public void execute() throws MojoExecutionException, MojoFailureException {
         Path base = startDirectory != null ? startDirectory.toPath() : Paths.get(System.getProperty("user.dir"));
         Properties user = session == null ? null : session.getUserProperties();
-        PluginBridge.withLog(getLog()).sampleGoal(spec, base.toAbsolutePath(),
+        PluginBridge.withLog(getLog())
+                .configured(CommandLine.flag(user, PluginBridge.REPORT_PROPERTY, report).on(),
+                        CommandLine.flag(user, PluginBridge.FAIL_ON_DEVIATION_PROPERTY, failOnDeviation).on())
+                .sampleGoal(spec, base.toAbsolutePath(),
                 outputDirectory == null ? null : outputDirectory.toPath(),
                 CommandLine.value(user, PluginBridge.SEED_PROPERTY, seed),
                 CommandLine.value(user, PluginBridge.ROWS_PROPERTY, rows),
