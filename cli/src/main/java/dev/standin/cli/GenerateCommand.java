@@ -18,7 +18,7 @@ import java.time.Duration;
 import java.util.List;
 
 /**
- * {@code standin generate SPEC... [--out DIR] [--seed N] [--rows N] [--format F]}: compiles every
+ * {@code standin generate SPEC... [--out DIR] [--seed N] [--rows N] [--format F] [--threads N]}: compiles every
  * spec first, and only when all are valid writes each one's data file and report directly into the
  * output directory, printing one summary line per dataset.
  *
@@ -43,6 +43,12 @@ final class GenerateCommand implements Command {
             "wait at most SECONDS (0 to 86400) for another Standin run writing to the same directory (default: "
                     + DirectoryLock.DEFAULT_WAIT.toSeconds() + ")");
 
+    /** The most --threads. */
+    static final int MAX_THREADS = 1024;
+
+    private static final Option THREADS = Option.valued("--threads", "N",
+            "generate rows on N threads (1 to " + MAX_THREADS + "; default: the processors available); the files are the same for any N");
+
     /** The longest --wait: one day. */
     static final long MAX_WAIT_SECONDS = 86_400;
 
@@ -63,7 +69,7 @@ final class GenerateCommand implements Command {
 
     @Override
     public List<Option> options() {
-        return List.of(OUT, SEED, ROWS, FORMAT, WAIT);
+        return List.of(OUT, SEED, ROWS, FORMAT, WAIT, THREADS);
     }
 
     @Override
@@ -80,9 +86,10 @@ final class GenerateCommand implements Command {
             throw UsageException.of(NAME, OUT.name() + " must be a valid directory path: " + outText);
         }
         Duration wait = args.value(WAIT.name()).isPresent() ? waitOption(args.value(WAIT.name()).get()) : DirectoryLock.DEFAULT_WAIT;
+        int threads = args.value(THREADS.name()).isPresent() ? threadsOption(args.value(THREADS.name()).get()) : 0;
         List<String> specs = OptionValues.specs(NAME, args.operands());
 
-        Engine engine = Engine.create(new Overrides(seed, rows, format));
+        Engine engine = Engine.create(new Overrides(seed, rows, format)).withThreads(threads);
         SpecBatch batch = SpecBatch.compile(engine, specs, console);
         if (batch.exitCode() != 0) {
             batch.printFailures(console);
@@ -140,6 +147,13 @@ final class GenerateCommand implements Command {
             throw UsageException.of(NAME, WAIT.name() + " must be a whole number of seconds from 0 to " + MAX_WAIT_SECONDS + ": " + text);
         }
         return Duration.ofSeconds(Long.parseLong(text));
+    }
+
+    private static int threadsOption(String text) throws UsageException {
+        if (!text.matches("[0-9]{1,4}") || Integer.parseInt(text) < 1 || Integer.parseInt(text) > MAX_THREADS) {
+            throw UsageException.of(NAME, THREADS.name() + " must be a whole number from 1 to " + MAX_THREADS + ": " + text);
+        }
+        return Integer.parseInt(text);
     }
 
     /** The output file (data file or a report) the failure names, itself or by its temporary file; else the data file. */

@@ -29,10 +29,12 @@ public final class Engine {
     private final boolean formatOverridden;
     private final Overrides overrides;
     private final boolean htmlReport;
+    private final int threads;
 
-    private Engine(Overrides overrides, boolean htmlReport) {
+    private Engine(Overrides overrides, boolean htmlReport, int threads) {
         this.overrides = overrides;
         this.htmlReport = htmlReport;
+        this.threads = threads;
         this.formatOverridden = overrides != null && overrides.format() != null;
         this.parser = SpecParser.withOverrides(overrides);
         this.norta = new NortaPearson();
@@ -40,12 +42,23 @@ public final class Engine {
 
     /** An engine that applies the given overrides (seed, rows, format) to every spec. */
     public static Engine create(Overrides overrides) {
-        return new Engine(overrides, true);
+        return new Engine(overrides, true, 0);
     }
 
     /** The same engine without the HTML report ({@code <dataset>.report.html}); the JSON report is always written. */
     public Engine withoutHtmlReport() {
-        return new Engine(overrides, false);
+        return new Engine(overrides, false, threads);
+    }
+
+    /**
+     * The same engine generating rows on {@code threads} threads (0, the default: the processors
+     * available). The bytes written are the same for any count.
+     */
+    public Engine withThreads(int threads) {
+        if (threads < 0) {
+            throw new IllegalArgumentException("threads must be >= 0 (0: the processors available): " + threads);
+        }
+        return new Engine(overrides, htmlReport, threads);
     }
 
     /**
@@ -85,7 +98,7 @@ public final class Engine {
         int slash = dataPath.lastIndexOf('/');
         String reportPath = (slash < 0 ? "" : dataPath.substring(0, slash + 1)) + spec.dataset() + ".report.json";
         OutputPaths.checkNotReport(spec, displayName, dataPath);
-        return new CompiledSpec(spec, model, Hashes.sha256(bytes), dataPath, reportPath, htmlReport);
+        return new CompiledSpec(spec, model, Hashes.sha256(bytes), dataPath, reportPath, htmlReport, threads);
     }
 
     /** The spec's file name with its extension replaced by the overriding format's. */

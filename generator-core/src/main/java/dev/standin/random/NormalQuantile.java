@@ -65,4 +65,29 @@ public final class NormalQuantile {
         }
         return q < 0 ? -value : value;
     }
+
+    /**
+     * {@link #of(double)} of {@code p[0 .. n − 1]} into {@code out} (which must not be {@code p}), the
+     * same bits: first the central rational function for every element in one loop without branches
+     * (which the JIT can vectorize: the same IEEE operations per element), then the tails and
+     * invalid arguments, about 15% of uniforms, one at a time.
+     */
+    public static void of(double[] p, double[] out, int n) {
+        for (int i = 0; i < n; i++) {
+            double q = p[i] - 0.5;
+            double r = CONST1 - q * q;
+            out[i] = q * (((((((2509.0809287301226727 * r + 33430.575583588128105) * r + 67265.770927008700853) * r
+                    + 45921.953931549871457) * r + 13731.693765509461125) * r + 1971.5909503065514427) * r
+                    + 133.14166789178437745) * r + 3.3871328727963666080)
+                    / (((((((5226.4952788528545610 * r + 28729.085735721942674) * r + 39307.895800092710610) * r
+                    + 21213.794301586595867) * r + 5394.1960214247511077) * r + 687.18700749205790830) * r
+                    + 42.313330701600911252) * r + 1.0);
+        }
+        for (int i = 0; i < n; i++) {
+            double x = p[i];
+            if (!(Math.abs(x - 0.5) <= SPLIT1) || !(x >= 0.0 && x <= 1.0)) {
+                out[i] = of(x);
+            }
+        }
+    }
 }

@@ -127,6 +127,276 @@ public final class DatasetStats {
         sample.offer(row, scratch);
     }
 
+    /**
+     * Adds a block of consecutive written rows, {@code firstRow .. firstRow + n − 1}, given column-major
+     * ({@code written[column][r]}, {@code missing[column][r]}) together with their {@link Block} summary.
+     * Moments and co-moments are merged by Chan, Golub and LeVeque's pairwise update ({@link Moments#merge}),
+     * so blocks must be added in row order with a block size that does not depend on the thread count:
+     * the statistics are then the same bits for any number of threads. Counts, histograms and the
+     * bottom-k sample are exact in any case.
+     */
+    public void acceptBlock(long firstRow, int n, double[][] written, boolean[][] missing, Block block) {
+        int k = moments.length;
+        for (int i = 0; i < k; i++) {
+            moments[i].merge(block.count[i], block.mean[i], block.m2[i], block.min[i], block.max[i], n - block.count[i]);
+            if (histograms[i] != null) {
+                histograms[i].addCounts(block.bins[i]);
+            }
+            long[] c = counts[i];
+            if (c != null) {
+                double[] x = written[i];
+                boolean[] miss = missing[i];
+                long offset = countOffset[i];
+                for (int r = 0; r < n; r++) {
+                    if (!miss[r]) {
+                        long j = (long) x[r] - offset;
+                        if (j >= 0 && j < c.length) {
+                            c[(int) j]++;
+                        }
+                    }
+                }
+            }
+        }
+        int pc = pairColumn.length;
+        for (int a = 0, idx = 0; a < pc; a++) {
+            for (int b = 0; b < a; b++, idx++) {
+                pairs[a][b].merge(block.pairCount[idx], block.pairMeanX[idx], block.pairMeanY[idx], block.pairM2x[idx],
+                        block.pairM2y[idx], block.pairCxy[idx]);
+            }
+        }
+        for (int r = 0; r < n; r++) {
+            long row = firstRow + r;
+            if (sample.admits(row)) {
+                for (int i = 0; i < k; i++) {
+                    scratch[i] = missing[i][r] ? Double.NaN : written[i][r];
+                }
+                sample.offer(row, scratch);
+            }
+        }
+    }
+
+    /** A new, empty block summary for this dataset's columns; one per thread, reusable. */
+    public Block newBlock() {
+        return new Block();
+    }
+
+    /**
+     * The statistics of one block of written rows that can be computed apart from the others (on any
+     * thread): per column the count, mean, sum of squared deviations, minimum, maximum and histogram
+     * counts; per correlated pair the same over rows where both are present plus the sum of cross
+     * products. Means by summation, then deviations from them (the two-pass algorithm; Chan, Golub and
+     * LeVeque 1983, section 2), with four interleaved partial sums in a fixed order.
+     */
+    public final class Block {
+        final long[] count;
+        final double[] mean;
+        final double[] m2;
+        final double[] min;
+        final double[] max;
+        final long[][] bins;
+        final long[] pairCount;
+        final double[] pairMeanX;
+        final double[] pairMeanY;
+        final double[] pairM2x;
+        final double[] pairM2y;
+        final double[] pairCxy;
+        private final boolean[] complete;
+        private double[][] dev = new double[0][0];
+
+        Block() {
+            int k = moments.length;
+            count = new long[k];
+            mean = new double[k];
+            m2 = new double[k];
+            min = new double[k];
+            max = new double[k];
+            bins = new long[k][];
+            for (int i = 0; i < k; i++) {
+                if (histograms[i] != null) {
+                    bins[i] = new long[histograms[i].bins() + 2];
+                }
+            }
+            int pc = pairColumn.length;
+            int pairCountTotal = pc * (pc - 1) / 2;
+            pairCount = new long[pairCountTotal];
+            pairMeanX = new double[pairCountTotal];
+            pairMeanY = new double[pairCountTotal];
+            pairM2x = new double[pairCountTotal];
+            pairM2y = new double[pairCountTotal];
+            pairCxy = new double[pairCountTotal];
+            complete = new boolean[k];
+        }
+
+        /** Summarises rows 0 .. n − 1 of the column-major arrays. */
+        public void compute(int n, double[][] written, boolean[][] missing) {
+            int k = moments.length;
+            if (dev.length < k || (k > 0 && dev[0].length < n)) {
+                dev = new double[k][n];
+            }
+            for (int i = 0; i < k; i++) {
+                double[] x = written[i];
+                boolean[] miss = missing[i];
+                double[] d = dev[i];
+                long cnt = 0;
+                double lo = Double.POSITIVE_INFINITY;
+                double hi = Double.NEGATIVE_INFINITY;
+                boolean all = true;
+                for (int r = 0; r < n; r++) {
+                    if (miss[r]) {
+                        all = false;
+                    }
+                }
+                complete[i] = all;
+                double mu;
+                double s2;
+                if (all) {
+                    cnt = n;
+                    mu = n == 0 ? 0.0 : sum(x, n) / n;
+                    for (int r = 0; r < n; r++) {
+                        double v = x[r];
+                        d[r] = v - mu;
+                        if (v < lo) {
+                            lo = v;
+                        }
+                        if (v > hi) {
+                            hi = v;
+                        }
+                    }
+                    s2 = dot(d, d, n);
+                } else {
+                    double s = 0;
+                    for (int r = 0; r < n; r++) {
+                        if (!miss[r]) {
+                            double v = x[r];
+                            s += v;
+                            cnt++;
+                            if (v < lo) {
+                                lo = v;
+                            }
+                            if (v > hi) {
+                                hi = v;
+                            }
+                        }
+                    }
+                    mu = cnt == 0 ? 0.0 : s / cnt;
+                    s2 = 0;
+                    for (int r = 0; r < n; r++) {
+                        if (!miss[r]) {
+                            double e = x[r] - mu;
+                            d[r] = e;
+                            s2 += e * e;
+                        } else {
+                            d[r] = 0.0;
+                        }
+                    }
+                }
+                count[i] = cnt;
+                mean[i] = mu;
+                m2[i] = s2;
+                min[i] = lo;
+                max[i] = hi;
+                long[] b = bins[i];
+                if (b != null) {
+                    java.util.Arrays.fill(b, 0);
+                    Histogram h = histograms[i];
+                    for (int r = 0; r < n; r++) {
+                        if (!miss[r]) {
+                            b[1 + h.bin(x[r])]++;
+                        }
+                    }
+                }
+            }
+            int pc = pairColumn.length;
+            for (int a = 0, idx = 0; a < pc; a++) {
+                int ca = pairColumn[a];
+                for (int bb = 0; bb < a; bb++, idx++) {
+                    int cb = pairColumn[bb];
+                    if (complete[ca] && complete[cb]) {
+                        pairCount[idx] = n;
+                        pairMeanX[idx] = mean[ca];
+                        pairMeanY[idx] = mean[cb];
+                        pairM2x[idx] = m2[ca];
+                        pairM2y[idx] = m2[cb];
+                        pairCxy[idx] = dot(dev[ca], dev[cb], n);
+                    } else {
+                        pairWithMissing(idx, n, written[ca], missing[ca], written[cb], missing[cb]);
+                    }
+                }
+            }
+        }
+
+        private void pairWithMissing(int idx, int n, double[] x, boolean[] mx, double[] y, boolean[] my) {
+            long cnt = 0;
+            double sx = 0;
+            double sy = 0;
+            for (int r = 0; r < n; r++) {
+                if (!mx[r] && !my[r]) {
+                    cnt++;
+                    sx += x[r];
+                    sy += y[r];
+                }
+            }
+            double mux = cnt == 0 ? 0.0 : sx / cnt;
+            double muy = cnt == 0 ? 0.0 : sy / cnt;
+            double qx = 0;
+            double qy = 0;
+            double qxy = 0;
+            for (int r = 0; r < n; r++) {
+                if (!mx[r] && !my[r]) {
+                    double dx = x[r] - mux;
+                    double dy = y[r] - muy;
+                    qx += dx * dx;
+                    qy += dy * dy;
+                    qxy += dx * dy;
+                }
+            }
+            pairCount[idx] = cnt;
+            pairMeanX[idx] = mux;
+            pairMeanY[idx] = muy;
+            pairM2x[idx] = qx;
+            pairM2y[idx] = qy;
+            pairCxy[idx] = qxy;
+        }
+    }
+
+    /** Σ x[r] for r &lt; n with four interleaved partial sums (fixed order, so always the same bits). */
+    private static double sum(double[] x, int n) {
+        double s0 = 0;
+        double s1 = 0;
+        double s2 = 0;
+        double s3 = 0;
+        int r = 0;
+        for (; r + 3 < n; r += 4) {
+            s0 += x[r];
+            s1 += x[r + 1];
+            s2 += x[r + 2];
+            s3 += x[r + 3];
+        }
+        for (; r < n; r++) {
+            s0 += x[r];
+        }
+        return (s0 + s1) + (s2 + s3);
+    }
+
+    /** Σ x[r]·y[r] for r &lt; n, four interleaved partial sums. */
+    private static double dot(double[] x, double[] y, int n) {
+        double s0 = 0;
+        double s1 = 0;
+        double s2 = 0;
+        double s3 = 0;
+        int r = 0;
+        for (; r + 3 < n; r += 4) {
+            s0 += x[r] * y[r];
+            s1 += x[r + 1] * y[r + 1];
+            s2 += x[r + 2] * y[r + 2];
+            s3 += x[r + 3] * y[r + 3];
+        }
+        for (; r < n; r++) {
+            s0 += x[r] * y[r];
+        }
+        return (s0 + s1) + (s2 + s3);
+    }
+
     public List<ColumnSpec> columns() {
         return columns;
     }

@@ -23,14 +23,38 @@ public final class Histogram {
     }
 
     public void add(double x) {
-        if (x < low) {
+        int i = bin(x);
+        if (i < 0) {
             below++;
-        } else if (x > high) {
+        } else if (i >= counts.length) {
             above++;
         } else {
-            int i = (int) ((x - low) / (high - low) * counts.length);
-            counts[Math.min(i, counts.length - 1)]++;
+            counts[i]++;
         }
+    }
+
+    /** The bin of a value: −1 below the range, {@link #bins()} above it (NaN falls in bin 0, as it always did). */
+    public int bin(double x) {
+        if (x < low) {
+            return -1;
+        }
+        if (x > high) {
+            return counts.length;
+        }
+        int i = (int) ((x - low) / (high - low) * counts.length);
+        return Math.min(i, counts.length - 1);
+    }
+
+    /**
+     * Adds counts gathered elsewhere with {@link #bin}: {@code binCounts[0]} below, {@code binCounts[1 +
+     * i]} in bin i, {@code binCounts[bins + 1]} above. Counts add exactly, in any order.
+     */
+    public void addCounts(long[] binCounts) {
+        below += binCounts[0];
+        for (int i = 0; i < counts.length; i++) {
+            counts[i] += binCounts[1 + i];
+        }
+        above += binCounts[counts.length + 1];
     }
 
     public double low() {

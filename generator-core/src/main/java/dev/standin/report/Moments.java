@@ -31,6 +31,37 @@ public final class Moments {
         missing++;
     }
 
+    /**
+     * Adds a group of values summarised by its count, mean, sum of squared deviations from that mean,
+     * minimum and maximum, plus a number of missing values: the pairwise update of T. F. Chan, G. H.
+     * Golub and R. J. LeVeque, "Updating formulae and a pairwise algorithm for computing sample
+     * variances", COMPSTAT 1982 (also The American Statistician 37(3), 1983, eq. 2.1). Merging the same
+     * groups in the same order gives the same bits, whatever thread summarised each group.
+     */
+    public void merge(long count, double groupMean, double groupM2, double groupMin, double groupMax, long groupMissing) {
+        missing += groupMissing;
+        if (count == 0) {
+            return;
+        }
+        if (n == 0) {
+            n = count;
+            mean = groupMean;
+            m2 = groupM2;
+        } else {
+            long total = n + count;
+            double d = groupMean - mean;
+            mean += d * ((double) count / total);
+            m2 += groupM2 + d * d * ((double) n * count / total);
+            n = total;
+        }
+        if (groupMin < min) {
+            min = groupMin;
+        }
+        if (groupMax > max) {
+            max = groupMax;
+        }
+    }
+
     public long count() {
         return n;
     }

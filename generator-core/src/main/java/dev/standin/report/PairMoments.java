@@ -25,6 +25,37 @@ public final class PairMoments {
         cxy += dx * (y - meanY);
     }
 
+    /**
+     * Adds a group of pairs summarised by its count, means, sums of squared deviations and sum of
+     * cross products of deviations (Chan, Golub and LeVeque's pairwise update, as in
+     * {@link Moments#merge}; the co-moment term is their eq. 2.1 with the product of the two mean shifts).
+     */
+    public void merge(long count, double groupMeanX, double groupMeanY, double groupM2x, double groupM2y, double groupCxy) {
+        if (count == 0) {
+            return;
+        }
+        if (n == 0) {
+            n = count;
+            meanX = groupMeanX;
+            meanY = groupMeanY;
+            m2x = groupM2x;
+            m2y = groupM2y;
+            cxy = groupCxy;
+            return;
+        }
+        long total = n + count;
+        double dx = groupMeanX - meanX;
+        double dy = groupMeanY - meanY;
+        double share = (double) count / total;
+        double weight = (double) n * count / total;
+        meanX += dx * share;
+        meanY += dy * share;
+        m2x += groupM2x + dx * dx * weight;
+        m2y += groupM2y + dy * dy * weight;
+        cxy += groupCxy + dx * dy * weight;
+        n = total;
+    }
+
     public long count() {
         return n;
     }

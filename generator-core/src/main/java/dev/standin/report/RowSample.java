@@ -31,9 +31,23 @@ public final class RowSample {
                 ? Long.compareUnsigned(b.priority, a.priority) : Long.compare(b.row, a.row));
     }
 
+    /** True when {@link #offer} would keep the row now (so a caller can skip assembling its values). */
+    public boolean admits(long row) {
+        if (heap.size() < capacity) {
+            return true;
+        }
+        long priority = priority(row);
+        Entry top = heap.peek();
+        return Long.compareUnsigned(priority, top.priority) < 0 || priority == top.priority && row < top.row;
+    }
+
+    private long priority(long row) {
+        return RandomStreams.mix64(seed + row * 0x9E3779B97F4A7C15L);
+    }
+
     /** Offers a row; values use NaN for missing. The array is copied only when kept. */
     public void offer(long row, double[] values) {
-        long priority = RandomStreams.mix64(seed + row * 0x9E3779B97F4A7C15L);
+        long priority = priority(row);
         if (heap.size() == capacity) {
             Entry top = heap.peek();
             if (Long.compareUnsigned(priority, top.priority) > 0
@@ -45,7 +59,11 @@ public final class RowSample {
         heap.add(new Entry(priority, row, values.clone()));
     }
 
-    /** The kept rows' values, in row order. */
+    /**
+     * The kept rows' values, in row order. The list remembers each complete column's average ranks
+     * once asked for them ({@link RankStatistics}), so the rank correlations of many pairs rank each
+     * column once.
+     */
     public List<double[]> rows() {
         List<Entry> all = new ArrayList<>(heap);
         all.sort((a, b) -> Long.compare(a.row, b.row));
@@ -53,7 +71,41 @@ public final class RowSample {
         for (Entry e : all) {
             out.add(e.values);
         }
-        return out;
+        return new Rows(out);
+    }
+
+    /** An unmodifiable list of sampled rows with a memo of each column's ranks. */
+    static final class Rows extends java.util.AbstractList<double[]> implements java.util.RandomAccess {
+        private final List<double[]> rows;
+        private final java.util.Map<Integer, double[]> ranks = new java.util.HashMap<>();
+
+        Rows(List<double[]> rows) {
+            this.rows = rows;
+        }
+
+        @Override
+        public double[] get(int index) {
+            return rows.get(index);
+        }
+
+        @Override
+        public int size() {
+            return rows.size();
+        }
+
+        /** The average ranks of a column in row order, or null when it has a missing value. */
+        double[] completeRanks(int column) {
+            return ranks.computeIfAbsent(column, c -> {
+                double[] x = new double[rows.size()];
+                for (int i = 0; i < x.length; i++) {
+                    x[i] = rows.get(i)[c];
+                    if (Double.isNaN(x[i])) {
+                        return null;
+                    }
+                }
+                return RankStatistics.averageRanks(x);
+            });
+        }
     }
 
     /** The kept rows' values, smallest priority first: any prefix is itself a seeded random sample. */
