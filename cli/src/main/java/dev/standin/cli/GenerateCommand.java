@@ -25,7 +25,9 @@ import java.util.List;
  * <p>The whole run holds the output directory's lock ({@link DirectoryLock}), so two runs into one
  * directory take turns: the second says {@code standin: waiting for DIR/.standin.lock (held by
  * another Standin run)} and fails with exit 1 ("busy") after {@code --wait} seconds. Every spec's
- * paths are checked against the directory before the first file is written.
+ * paths are checked against the directory before the first file is written. When a fidelity check
+ * of the written data fails, each failed check is printed on stderr and the exit code is
+ * {@value #DEVIATION} (the files are complete and kept), unless {@code --allow-deviation}.
  */
 final class GenerateCommand implements Command {
 
@@ -49,6 +51,14 @@ final class GenerateCommand implements Command {
     private static final Option THREADS = Option.valued("--threads", "N",
             "generate rows on N threads (1 to " + MAX_THREADS + "; default: the processors available); the files are the same for any N");
 
+    private static final Option NO_REPORT = Option.flag("--no-report", null,
+            "do not write <dataset>.report.html (the JSON report is always written)");
+    private static final Option ALLOW_DEVIATION = Option.flag("--allow-deviation", null,
+            "exit 0 even when a fidelity check fails (failed checks are still printed)");
+
+    /** The exit code when the files were written but a fidelity check failed. */
+    static final int DEVIATION = 3;
+
     /** The longest --wait: one day. */
     static final long MAX_WAIT_SECONDS = 86_400;
 
@@ -69,7 +79,7 @@ final class GenerateCommand implements Command {
 
     @Override
     public List<Option> options() {
-        return List.of(OUT, SEED, ROWS, FORMAT, WAIT, THREADS);
+        return List.of(OUT, SEED, ROWS, FORMAT, WAIT, THREADS, NO_REPORT, ALLOW_DEVIATION);
     }
 
     @Override
@@ -90,6 +100,10 @@ final class GenerateCommand implements Command {
         List<String> specs = OptionValues.specs(NAME, args.operands());
 
         Engine engine = Engine.create(new Overrides(seed, rows, format)).withThreads(threads);
+        if (args.has(NO_REPORT.name())) {
+            engine = engine.withoutHtmlReport();
+        }
+        List<GenerationResult> results = new java.util.ArrayList<>();
         SpecBatch batch = SpecBatch.compile(engine, specs, console);
         if (batch.exitCode() != 0) {
             batch.printFailures(console);
@@ -133,11 +147,32 @@ final class GenerateCommand implements Command {
                     return 1;
                 }
                 console.out().println(result.summary());
+                results.add(result);
             }
         } catch (IOException e) {
             console.err().println("standin: cannot release " + console.show(outDir.resolve(DirectoryLock.FILE_NAME)) + ": "
                     + IoErrors.reason(e, console));
             return 1;
+        }
+        return deviations(results, args.has(ALLOW_DEVIATION.name()), console.err());
+    }
+
+    /**
+     * Prints each failed fidelity check on {@code err} and returns {@value #DEVIATION} when one failed
+     * (0 with {@code allow}, or when none failed).
+     */
+    static int deviations(List<GenerationResult> results, boolean allow, java.io.PrintStream err) {
+        int failed = 0;
+        for (GenerationResult result : results) {
+            for (var check : result.failedChecks()) {
+                err.println("standin: " + result.dataset() + ": " + check.describe());
+                failed++;
+            }
+        }
+        if (failed > 0 && !allow) {
+            err.println("standin: " + failed + " fidelity check(s) failed; the files are written"
+                    + " (--allow-deviation exits 0 all the same)");
+            return DEVIATION;
         }
         return 0;
     }

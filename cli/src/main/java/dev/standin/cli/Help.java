@@ -71,7 +71,8 @@ final class Help {
 
     private static void footer(StringBuilder sb) {
         sb.append("Problems in a spec are printed as FILE:LINE:COLUMN: message.\n");
-        sb.append("Exit status: 0 success; 2 invalid spec or usage error; 1 I/O or internal failure.\n");
+        sb.append("Exit status: 0 success; 2 invalid spec or usage error; 1 I/O or internal failure;\n"
+                + "3 generate wrote every file but a fidelity check of the data failed.\n");
     }
 
     private static void row(StringBuilder sb, String label, String text) {

@@ -35,7 +35,7 @@ class HelpTest {
 
         assertEquals(0, help.exit());
         assertTrue(help.out().startsWith("Usage: standin generate SPEC... [--out DIR] [--seed N] [--rows N]"
-                + " [--format csv|json|jsonl] [--wait SECONDS] [--threads N]\n"), help.out());
+                + " [--format csv|json|jsonl] [--wait SECONDS] [--threads N] [--no-report] [--allow-deviation]\n"), help.out());
         assertEquals(help, CliRun.in(dir, "help", "generate"));
         assertEquals(help, CliRun.in(dir, "generate", "x.yaml", "--rows", "abc", "-h"));
         assertEquals(List.of(), CliRun.filesUnder(dir));

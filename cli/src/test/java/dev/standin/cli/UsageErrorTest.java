@@ -24,7 +24,7 @@ class UsageErrorTest {
                 Arguments.of(List.of("generate", "g.yaml", "--rwos", "3"),
                         "standin: unknown option: --rwos (did you mean --rows?)", gen),
                 Arguments.of(List.of("generate", "g.yaml", "--quiet"),
-                        "standin: unknown option: --quiet (generate takes --out, --seed, --rows, --format, --wait, --threads, --help)", gen),
+                        "standin: unknown option: --quiet (generate takes --out, --seed, --rows, --format, --wait, --threads, --no-report, --allow-deviation, --help)", gen),
                 Arguments.of(List.of("generate", "g.yaml", "--rows", "abc"),
                         "standin: --rows must be a whole number from 0 to 1099511627776: abc", gen),
                 // 2^40 + 1, one past the largest row count

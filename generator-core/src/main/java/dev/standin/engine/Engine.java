@@ -98,7 +98,8 @@ public final class Engine {
         int slash = dataPath.lastIndexOf('/');
         String reportPath = (slash < 0 ? "" : dataPath.substring(0, slash + 1)) + spec.dataset() + ".report.json";
         OutputPaths.checkNotReport(spec, displayName, dataPath);
-        return new CompiledSpec(spec, model, Hashes.sha256(bytes), dataPath, reportPath, htmlReport, threads);
+        return new CompiledSpec(spec, model, Hashes.sha256(bytes), dataPath, reportPath,
+                htmlReport && spec.output().htmlReport(), threads);
     }
 
     /** The spec's file name with its extension replaced by the overriding format's. */
