@@ -156,6 +156,16 @@ public final class GenerateMojo extends AbstractMojo {
     @Parameter(property = "standin.report", defaultValue = "true")
     private boolean report;
 
+    /**
+     * Generates rows on this many threads (0, the default, uses the processors available). The files
+     * are byte-identical for any number; lower it when a parallel build ({@code mvn -T}) already keeps
+     * every core busy. {@code -Dstandin.threads} wins over a value in the pom.
+     *
+     * @since 0.1.0
+     */
+    @Parameter(property = "standin.threads", defaultValue = "0")
+    private int threads;
+
     /** The project whose test resources receive the output folder. */
     @Parameter(defaultValue = "${project}", readonly = true, required = true)
     private MavenProject project;
@@ -188,6 +198,7 @@ public final class GenerateMojo extends AbstractMojo {
         PluginBridge.withLog(getLog())
                 .configured(CommandLine.flag(user, PluginBridge.REPORT_PROPERTY, report).on(),
                         CommandLine.flag(user, PluginBridge.FAIL_ON_DEVIATION_PROPERTY, failOnDeviation).on())
+                .withThreads(threadCount(user))
                 .generateGoal(request, project);
     }
 
@@ -223,5 +234,14 @@ public final class GenerateMojo extends AbstractMojo {
         }
         code.put("code", Digests.codeFingerprint(parts));
         return code;
+    }
+
+    private int threadCount(Properties user) throws MojoFailureException {
+        String text = CommandLine.value(user, PluginBridge.THREADS_PROPERTY, Integer.toString(threads));
+        try {
+            return Integer.parseInt(text.trim());
+        } catch (NumberFormatException e) {
+            throw new MojoFailureException(PluginBridge.THREADS_PROPERTY + " must be a whole number from 1 to 1024: " + text);
+        }
     }
 }

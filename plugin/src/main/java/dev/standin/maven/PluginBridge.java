@@ -151,16 +151,35 @@ public final class PluginBridge {
     private final Log log;
     private final boolean htmlReport;
     private final boolean failOnDeviation;
+    private final int threads;
 
-    private PluginBridge(Log log, boolean htmlReport, boolean failOnDeviation) {
+    private PluginBridge(Log log, boolean htmlReport, boolean failOnDeviation, int threads) {
         this.log = Objects.requireNonNull(log, "log");
         this.htmlReport = htmlReport;
         this.failOnDeviation = failOnDeviation;
+        this.threads = threads;
     }
 
     /** A bridge that reports through the given goal log: HTML reports on, failing on deviations. */
     public static PluginBridge withLog(Log log) {
-        return new PluginBridge(log, true, true);
+        return new PluginBridge(log, true, true, 0);
+    }
+
+    /** The property for the number of generating threads. */
+    public static final String THREADS_PROPERTY = "standin.threads";
+
+    /**
+     * This bridge generating rows on the given number of threads (0: the processors available); the
+     * files are the same for any number.
+     *
+     * @throws MojoFailureException for a number outside 0 .. 1024
+     */
+    public PluginBridge withThreads(int threads) throws MojoFailureException {
+        if (threads < 0 || threads > 1024) {
+            throw new MojoFailureException(THREADS_PROPERTY + " must be a whole number from 1 to 1024 (0 or unset: the"
+                    + " processors available): " + threads);
+        }
+        return new PluginBridge(log, htmlReport, failOnDeviation, threads);
     }
 
     /**
@@ -168,11 +187,11 @@ public final class PluginBridge {
      * must also be on), and failing the build when a fidelity check fails or only warning.
      */
     public PluginBridge configured(boolean htmlReport, boolean failOnDeviation) {
-        return new PluginBridge(log, htmlReport, failOnDeviation);
+        return new PluginBridge(log, htmlReport, failOnDeviation, threads);
     }
 
     private Engine engine(Overrides overrides) {
-        Engine engine = Engine.create(overrides);
+        Engine engine = Engine.create(overrides).withThreads(threads);
         return htmlReport ? engine : engine.withoutHtmlReport();
     }
 

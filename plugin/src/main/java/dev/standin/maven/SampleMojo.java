@@ -104,6 +104,16 @@ public final class SampleMojo extends AbstractMojo {
     @Parameter(property = "standin.report", defaultValue = "true")
     private boolean report;
 
+    /**
+     * Generates rows on this many threads (0, the default, uses the processors available). The files
+     * are byte-identical for any number; lower it when a parallel build ({@code mvn -T}) already keeps
+     * every core busy. {@code -Dstandin.threads} wins over a value in the pom.
+     *
+     * @since 0.1.0
+     */
+    @Parameter(property = "standin.threads", defaultValue = "0")
+    private int threads;
+
     /** The build, for the {@code -D} user properties that win over the pom. */
     @Parameter(defaultValue = "${session}", readonly = true)
     private MavenSession session;
@@ -119,10 +129,20 @@ public final class SampleMojo extends AbstractMojo {
         PluginBridge.withLog(getLog())
                 .configured(CommandLine.flag(user, PluginBridge.REPORT_PROPERTY, report).on(),
                         CommandLine.flag(user, PluginBridge.FAIL_ON_DEVIATION_PROPERTY, failOnDeviation).on())
+                .withThreads(threadCount(user))
                 .sampleGoal(spec, base.toAbsolutePath(),
                 outputDirectory == null ? null : outputDirectory.toPath(),
                 CommandLine.value(user, PluginBridge.SEED_PROPERTY, seed),
                 CommandLine.value(user, PluginBridge.ROWS_PROPERTY, rows),
                 CommandLine.value(user, PluginBridge.FORMAT_PROPERTY, format));
+    }
+
+    private int threadCount(Properties user) throws MojoFailureException {
+        String text = CommandLine.value(user, PluginBridge.THREADS_PROPERTY, Integer.toString(threads));
+        try {
+            return Integer.parseInt(text.trim());
+        } catch (NumberFormatException e) {
+            throw new MojoFailureException(PluginBridge.THREADS_PROPERTY + " must be a whole number from 1 to 1024: " + text);
+        }
     }
 }

@@ -39,6 +39,15 @@ class FailOnDeviationTest {
     }
 
     @Test
+    void threadsOutsideTheRangeAreRefusedNamingTheProperty() {
+        PluginBridge bridge = PluginBridge.withLog(new SystemStreamLog());
+        MojoFailureException e = assertThrows(MojoFailureException.class, () -> bridge.withThreads(5000));
+        assertEquals("standin.threads must be a whole number from 1 to 1024 (0 or unset: the processors available): 5000",
+                e.getMessage());
+        assertDoesNotThrow(() -> bridge.withThreads(2));
+    }
+
+    @Test
     void failOnDeviationFalseOnlyWarns() {
         PluginBridge bridge = PluginBridge.withLog(new SystemStreamLog()).configured(true, false);
         assertDoesNotThrow(() -> bridge.failOnDeviations(List.of(result(FAILED))));
