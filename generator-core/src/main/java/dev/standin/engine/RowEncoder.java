@@ -56,6 +56,8 @@ final class RowEncoder {
     /** CSV: number and boolean texts could need quoting under this delimiter, so quote them generically. */
     private final boolean genericNumbers;
     private final long rows;
+    /** {@link #boundedCsvRow()}, computed once. */
+    private final int csvRowBound;
     /** Sequence columns: start and step (the text is start + step·row, exact in 64 bits). */
     private final long[] start;
     private final long[] step;
@@ -121,6 +123,7 @@ final class RowEncoder {
                 }
             }
         }
+        this.csvRowBound = boundedCsvRow();
     }
 
     /** The bytes before the first row: the CSV header, or the JSON array's opening bracket. */
@@ -167,6 +170,37 @@ final class RowEncoder {
         return s.substring(0, s.length() - 1).getBytes(StandardCharsets.UTF_8);
     }
 
+    /**
+     * The most bytes one row can take when every cell's length is bounded (fixed decimals at most
+     * {@value NumberText#MAX_FIXED_CHARS}, whole numbers 20, labels and booleans their longest
+     * encoding) and the CSV delimiter is one byte; else −1, and rows take the general path.
+     */
+    private int boundedCsvRow() {
+        if (!csv || genericNumbers || delimiter.length != 1) {
+            return -1;
+        }
+        int total = 1;
+        for (int i = 0; i < kinds.length; i++) {
+            int cell = switch (kinds[i]) {
+                case FIXED -> NumberText.MAX_FIXED_CHARS;
+                case INTEGER, SEQUENCE -> 20;
+                case BOOLEAN, LABEL -> {
+                    int longest = 0;
+                    for (byte[] level : levelBytes[i]) {
+                        longest = Math.max(longest, level.length);
+                    }
+                    yield longest;
+                }
+                default -> -1;
+            };
+            if (cell < 0) {
+                return -1;
+            }
+            total += Math.max(cell, nullBytes.length) + 1;
+        }
+        return total;
+    }
+
     /** Per-thread working state. */
     final class State {
         private final StringWriter cellText = new StringWriter();
@@ -182,6 +216,10 @@ final class RowEncoder {
      * value its text reads back as (for the statistics).
      */
     void encode(long firstRow, int n, double[][] values, boolean[][] missing, ByteText out, State state) {
+        if (csvRowBound > 0) {
+            encodeBoundedCsv(firstRow, n, values, missing, out);
+            return;
+        }
         int k = kinds.length;
         for (int r = 0; r < n; r++) {
             long row = firstRow + r;
@@ -219,6 +257,68 @@ final class RowEncoder {
             } else {
                 out.append((byte) '\n');
             }
+        }
+    }
+
+    /**
+     * CSV rows whose cells all have bounded lengths, written straight into the buffer's storage: the
+     * same bytes as the general path (fixed decimals by {@link NumberText#writeScaled}, whole numbers as
+     * {@link Long#toString(long)}, levels as encoded once), with room reserved once per row.
+     */
+    private void encodeBoundedCsv(long firstRow, int n, double[][] values, boolean[][] missing, ByteText out) {
+        int k = kinds.length;
+        byte delim = delimiter[0];
+        for (int r = 0; r < n; r++) {
+            long row = firstRow + r;
+            byte[] b = out.reserve(csvRowBound);
+            int p = out.length();
+            for (int i = 0; i < k; i++) {
+                if (i > 0) {
+                    b[p++] = delim;
+                }
+                if (missing[i][r]) {
+                    for (byte x : nullBytes) {
+                        b[p++] = x;
+                    }
+                    continue;
+                }
+                double v = values[i][r];
+                switch (kinds[i]) {
+                    case FIXED -> {
+                        long q = NumberText.scaledHalfEven(v, decimals[i]);
+                        if (q == NumberText.NO_FAST_PATH) {
+                            // beyond 2^53 or 2^62 scaled: BigDecimal, through the checked buffer
+                            out.setLength(p);
+                            values[i][r] = out.appendFixed(v, decimals[i]);
+                            b = out.reserve(csvRowBound);
+                            p = out.length();
+                        } else {
+                            boolean negative = v < 0;
+                            p = NumberText.writeScaled(q, negative, decimals[i], b, p);
+                            values[i][r] = NumberText.scaledValue(q, negative, decimals[i]);
+                        }
+                    }
+                    case INTEGER, SEQUENCE -> {
+                        long whole = kinds[i] == Kind.SEQUENCE ? start[i] + step[i] * row : (long) v;
+                        if (whole == Long.MIN_VALUE) {
+                            out.setLength(p);
+                            out.appendLong(whole);
+                            b = out.reserve(csvRowBound);
+                            p = out.length();
+                        } else {
+                            p = ByteText.writeLong(whole, b, p);
+                        }
+                    }
+                    default -> {
+                        byte[] level = levelBytes[i][kinds[i] == Kind.BOOLEAN ? (v == 1.0 ? 1 : 0) : (int) v];
+                        for (byte x : level) {
+                            b[p++] = x;
+                        }
+                    }
+                }
+            }
+            b[p++] = '\n';
+            out.setLength(p);
         }
     }
 

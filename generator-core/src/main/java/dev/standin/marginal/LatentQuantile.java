@@ -8,9 +8,9 @@ import java.util.Arrays;
  * and of its quantile function, for the row sampler's inner loop. Four forms:
  * <ul>
  *   <li>linear: μ + σz for an untruncated normal, the expression the sampler always used;</li>
- *   <li>exact: the marginal's own functions where they are already cheap (lognormal: one
- *   {@code StrictMath.exp}; the piecewise-linear {@code quantiles} table; a table that could not be
- *   made accurate);</li>
+ *   <li>exact: the marginal's own functions where they are already cheap (the piecewise-linear
+ *   {@code quantiles} table, discrete families too wide to tabulate) or where no table could be made
+ *   accurate;</li>
  *   <li>steps, for distributions on whole numbers: F<sup>-1</sup>(Φ(z)) is a step function of z, so the
  *   latent thresholds t<sub>i</sub> where it steps from value i to i + 1 are found once by bisection
  *   over the doubles with the exact map itself, and a value is then a binary search of z among them.
@@ -78,7 +78,7 @@ public abstract class LatentQuantile {
         if (m instanceof DiscreteTable t) {
             return t.size() - 1 <= MAX_STEPS ? Steps.build(t) : new Exact(m);
         }
-        if (m.isDiscrete() || m instanceof Lognormal || m instanceof QuantileTable) {
+        if (m.isDiscrete() || m instanceof QuantileTable) {
             return new Exact(m);
         }
         return Chebyshev.build(m);
@@ -394,21 +394,26 @@ public abstract class LatentQuantile {
             }
         }
 
-        /** Within {@link #TOLERANCE} of x and, with a finite upper end U, of U − x, at every check point. */
+        /**
+         * Within {@link #TOLERANCE} of x, and with a finite upper end U within {@value #UPPER_TOLERANCE} of
+         * U − x, at every check point.
+         */
         private static boolean accurate(double[] c, int form, double upper, double[] checkT, double[] checkX) {
             for (int i = 0; i < checkT.length; i++) {
                 double exact = checkX[i];
-                double approx = evaluate(c, 0, checkT[i], form, upper);
-                double scale = Math.abs(exact);
-                if (upper == upper) {
-                    scale = Math.min(scale, upper - exact);
+                double error = Math.abs(evaluate(c, 0, checkT[i], form, upper) - exact);
+                if (!(error <= TOLERANCE * Math.abs(exact))) {
+                    return false;
                 }
-                if (!(Math.abs(approx - exact) <= TOLERANCE * scale)) {
+                if (upper == upper && !(error <= UPPER_TOLERANCE * (upper - exact))) {
                     return false;
                 }
             }
             return true;
         }
+
+        /** Largest difference accepted relative to the distance from the support's upper end. */
+        static final double UPPER_TOLERANCE = 1e-13;
 
         /** Clenshaw's recurrence for Σ c<sub>k</sub> T<sub>k</sub>(t), then back from the cell's form. */
         private static double evaluate(double[] c, int off, double t, int form, double upper) {

@@ -92,6 +92,40 @@ public final class ByteText {
         return NumberText.scaledValue(q, negative, decimals);
     }
 
+    /**
+     * Makes room for {@code extra} more bytes and returns the storage, to be written from
+     * {@link #length()} on and then committed with {@link #setLength}; valid until the next append.
+     */
+    public byte[] reserve(int extra) {
+        ensure(extra);
+        return buf;
+    }
+
+    /** Sets the number of bytes held, after writing into {@link #reserve}'s storage. */
+    public void setLength(int length) {
+        if (length < 0 || length > buf.length) {
+            throw new IllegalArgumentException("length must be in [0, " + buf.length + "]: " + length);
+        }
+        len = length;
+    }
+
+    /** Writes the decimal text of v (not Long.MIN_VALUE) at pos; returns the position after it. */
+    public static int writeLong(long v, byte[] buf, int pos) {
+        if (v < 0) {
+            buf[pos++] = '-';
+            v = -v;
+        }
+        int n = NumberText.digitCount(v);
+        int i = pos + n;
+        int end = i;
+        do {
+            long t = v / 10;
+            buf[--i] = (byte) ('0' + (int) (v - t * 10));
+            v = t;
+        } while (v != 0);
+        return end;
+    }
+
     /** Writes the bytes held to a stream. */
     public void writeTo(OutputStream out) throws IOException {
         out.write(buf, 0, len);

@@ -55,7 +55,7 @@ public final class NumberText {
     };
 
     /** Returned by {@link #scaledHalfEven} when the fast path does not apply. */
-    static final long NO_FAST_PATH = Long.MIN_VALUE;
+    public static final long NO_FAST_PATH = Long.MIN_VALUE;
 
     /** The value rounded half-even to {@code decimals} digits after the point, in plain notation. */
     public static String fixed(double value, int decimals) {
@@ -70,7 +70,7 @@ public final class NumberText {
     }
 
     /** The longest text {@link #writeScaled} produces: sign, 19 digits, point, leading zeros. */
-    static final int MAX_FIXED_CHARS = 40;
+    public static final int MAX_FIXED_CHARS = 40;
 
     /**
      * |value|·10<sup>decimals</sup> rounded half-even to an integer, computed exactly: a finite double
@@ -84,7 +84,7 @@ public final class NumberText {
      * @return the rounded magnitude, at most 2<sup>62</sup>, or {@link #NO_FAST_PATH} when it would be
      *     larger or |value| ≥ 2<sup>53</sup> (then use BigDecimal)
      */
-    static long scaledHalfEven(double value, int decimals) {
+    public static long scaledHalfEven(double value, int decimals) {
         long bits = Double.doubleToRawLongBits(value);
         int biased = (int) ((bits >>> 52) & 0x7FF);
         long m = bits & 0xFFFFFFFFFFFFFL;
@@ -147,13 +147,17 @@ public final class NumberText {
      *
      * @return the position after the text
      */
-    static int writeScaled(long q, boolean negative, int decimals, byte[] buf, int pos) {
+    public static int writeScaled(long q, boolean negative, int decimals, byte[] buf, int pos) {
         if (negative && q != 0) {
             buf[pos++] = '-';
         }
         int intDigits = Math.max(1, digitCount(q) - decimals);
         int end = pos + intDigits + (decimals > 0 ? decimals + 1 : 0);
         int i = end;
+        if (q <= Integer.MAX_VALUE) {
+            writeSmall((int) q, decimals, buf, pos, i);
+            return end;
+        }
         long v = q;
         // the fraction: exactly `decimals` digits, two at a time from the right
         int f = decimals;
@@ -190,6 +194,41 @@ public final class NumberText {
         return end;
     }
 
+    /** {@link #writeScaled}'s digits for q below 2<sup>31</sup>, in int arithmetic (the common case). */
+    private static void writeSmall(int v, int decimals, byte[] buf, int pos, int end) {
+        int i = end;
+        int f = decimals;
+        while (f >= 2) {
+            int t = v / 100;
+            int pair = v - t * 100;
+            v = t;
+            buf[--i] = DIGIT_ONES[pair];
+            buf[--i] = DIGIT_TENS[pair];
+            f -= 2;
+        }
+        if (f == 1) {
+            int t = v / 10;
+            buf[--i] = (byte) ('0' + (v - t * 10));
+            v = t;
+        }
+        if (decimals > 0) {
+            buf[--i] = '.';
+        }
+        while (v >= 100) {
+            int t = v / 100;
+            int pair = v - t * 100;
+            v = t;
+            buf[--i] = DIGIT_ONES[pair];
+            buf[--i] = DIGIT_TENS[pair];
+        }
+        if (v >= 10) {
+            buf[--i] = DIGIT_ONES[v];
+            buf[--i] = DIGIT_TENS[v];
+        } else if (i > pos) {
+            buf[--i] = (byte) ('0' + v);
+        }
+    }
+
     /** The tens and ones digit of 0..99, as ASCII. */
     private static final byte[] DIGIT_TENS = new byte[100];
     private static final byte[] DIGIT_ONES = new byte[100];
@@ -219,7 +258,7 @@ public final class NumberText {
      * the correctly rounded quotient (Clinger, "How to read floating point numbers accurately", PLDI
      * 1990, the fast path). Larger q is parsed from its text.
      */
-    static double scaledValue(long q, boolean negative, int decimals) {
+    public static double scaledValue(long q, boolean negative, int decimals) {
         if (q == 0) {
             return 0.0;
         }
