@@ -1,0 +1,85 @@
+package dev.standin.bench;
+
+import dev.standin.engine.CompiledSpec;
+import dev.standin.engine.Engine;
+import dev.standin.spec.Overrides;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+
+/** Specs the benchmarks share: the reference job and generated wide specs (an invented scenario: a sensor hall). */
+final class Specs {
+
+    private Specs() {
+    }
+
+    /** bench/mixed-1m.yaml from the working directory (the repository root or bench/), or its text built in. */
+    static String mixed() throws Exception {
+        for (Path p : new Path[] {Path.of("bench/mixed-1m.yaml"), Path.of("mixed-1m.yaml"), Path.of("../bench/mixed-1m.yaml")}) {
+            if (Files.isRegularFile(p)) {
+                return Files.readString(p, StandardCharsets.UTF_8);
+            }
+        }
+        throw new IllegalStateException("run from the repository root: bench/mixed-1m.yaml not found");
+    }
+
+    /**
+     * k normal columns under a latent correlation matrix 0.5<sup>|i − j|</sup> (AR(1), positive definite
+     * for any k), written out in full so no completion or repair runs: the factor's cost alone.
+     */
+    static String normals(int k, long rows) {
+        StringBuilder sb = new StringBuilder("dataset: sensor-hall\nrows: " + rows + "\nseed: 77\ncolumns:\n");
+        for (int i = 0; i < k; i++) {
+            sb.append("  s").append(i).append(": {dist: normal, mean: 20, sd: 2, decimals: 3}\n");
+        }
+        sb.append("correlation:\n  measure: latent\n  order: [");
+        for (int i = 0; i < k; i++) {
+            sb.append(i > 0 ? ", " : "").append('s').append(i);
+        }
+        sb.append("]\n  matrix:\n");
+        for (int i = 0; i < k; i++) {
+            sb.append("    - [");
+            for (int j = 0; j < k; j++) {
+                int d = Math.abs(i - j);
+                sb.append(j > 0 ? "," : "").append(d == 0 ? "1" : d > 30 ? "0" : Double.toString(Math.pow(0.5, d)));
+            }
+            sb.append("]\n");
+        }
+        return sb.toString();
+    }
+
+    /**
+     * k uniform columns with a Spearman target of 0.3 between neighbours and 0.09 two apart, the rest
+     * 0, given in full: the Spearman → latent map and the check and repair of the matrix (not the
+     * factor alone).
+     */
+    static String spearmanBand(int k) {
+        StringBuilder sb = new StringBuilder("dataset: sensor-hall\nrows: 1000\nseed: 78\ncolumns:\n");
+        for (int i = 0; i < k; i++) {
+            sb.append("  s").append(i).append(": {dist: uniform, min: 0, max: 1, decimals: 3}\n");
+        }
+        sb.append("correlation:\n  measure: spearman\n  order: [");
+        for (int i = 0; i < k; i++) {
+            sb.append(i > 0 ? ", " : "").append('s').append(i);
+        }
+        sb.append("]\n  matrix:\n");
+        for (int i = 0; i < k; i++) {
+            sb.append("    - [");
+            for (int j = 0; j < k; j++) {
+                int d = Math.abs(i - j);
+                sb.append(j > 0 ? "," : "").append(d == 0 ? "1" : d == 1 ? "0.3" : d == 2 ? "0.09" : "0");
+            }
+            sb.append("]\n");
+        }
+        return sb.toString();
+    }
+
+    static CompiledSpec compile(String yaml) throws Exception {
+        return Engine.create(Overrides.none()).withoutHtmlReport().compile("bench.yaml", yaml.getBytes(StandardCharsets.UTF_8), "");
+    }
+
+    static CompiledSpec compile(String yaml, long rows) throws Exception {
+        return Engine.create(new Overrides(null, rows, null)).withoutHtmlReport()
+                .compile("bench.yaml", yaml.getBytes(StandardCharsets.UTF_8), "");
+    }
+}
