@@ -20,7 +20,7 @@ import org.openjdk.jmh.annotations.Warmup;
 
 /**
  * Whole rows per row: {@code mixed} is bench/mixed-1m.yaml's 8 columns drawn and encoded to CSV bytes
- * ({@link RowRanges}, one thread, no statistics); {@code normalsK} are k correlated normal columns,
+ * ({@link RowRanges.Writer}, one thread, no statistics); {@code normalsK} are k correlated normal columns,
  * where the factor step w = Lz costs about k²/2 multiply-adds per row ({@code drawOnly} leaves out the
  * encoding, so the growth with k shows).
  */
@@ -38,6 +38,7 @@ public class RowBench {
     String spec;
 
     CompiledSpec compiled;
+    RowRanges.Writer writer;
     RowSampler sampler;
     RowSampler.Scratch scratch;
     double[][] values;
@@ -49,6 +50,7 @@ public class RowBench {
     public void setup() throws Exception {
         String yaml = spec.equals("mixed") ? Specs.mixed() : Specs.normals(Integer.parseInt(spec.substring(7)), 1L << 40);
         compiled = Specs.compile(yaml, 1L << 40);
+        writer = RowRanges.writer(compiled);
         sampler = new RowSampler(compiled.spec(), compiled.model());
         scratch = sampler.scratch();
         int k = compiled.spec().columns().size();
@@ -60,7 +62,7 @@ public class RowBench {
     @OperationsPerInvocation(ROWS)
     public void drawAndEncode() throws Exception {
         long f = from += ROWS;
-        RowRanges.rows(compiled, f, f + ROWS, sink);
+        writer.rows(f, f + ROWS, sink);
     }
 
     @Benchmark

@@ -112,12 +112,25 @@ final class DatasetWriter {
      * {@link RowRanges}) to a stream, one block at a time on the calling thread.
      */
     static void writeRows(CompiledSpec compiled, long from, long to, OutputStream out) throws IOException {
-        Blocks blocks = new Blocks(compiled);
-        Block b = blocks.newBlock();
-        for (long row = from; row < to; row += blocks.blockRows) {
-            int n = (int) Math.min(blocks.blockRows, to - row);
-            blocks.make(b, row, n, false);
-            b.text.writeTo(out);
+        new RangeWriter(compiled).write(from, to, out);
+    }
+
+    /** Writes row ranges of one spec, set up once (sampler tables, encoder, buffers); one thread at a time. */
+    static final class RangeWriter {
+        private final Blocks blocks;
+        private final Block block;
+
+        RangeWriter(CompiledSpec compiled) {
+            this.blocks = new Blocks(compiled);
+            this.block = blocks.newBlock();
+        }
+
+        void write(long from, long to, OutputStream out) throws IOException {
+            for (long row = from; row < to; row += blocks.blockRows) {
+                int n = (int) Math.min(blocks.blockRows, to - row);
+                blocks.make(block, row, n, false);
+                block.text.writeTo(out);
+            }
         }
     }
 

@@ -26,12 +26,42 @@ public final class RowRanges {
      * @throws IllegalArgumentException unless 0 ≤ from ≤ to ≤ the spec's rows
      */
     public static void rows(CompiledSpec compiled, long from, long to, OutputStream out) throws IOException {
+        check(compiled, from, to);
+        DatasetWriter.writeRows(compiled, from, to, out);
+    }
+
+    /**
+     * A writer of row ranges of one compiled spec that builds the sampler's tables and its buffers once,
+     * for writing many ranges; {@link #rows} builds them on every call. Not for concurrent use: give
+     * each thread its own.
+     */
+    public static Writer writer(CompiledSpec compiled) {
+        return new Writer(compiled);
+    }
+
+    /** See {@link #writer(CompiledSpec)}. */
+    public static final class Writer {
+        private final CompiledSpec compiled;
+        private final DatasetWriter.RangeWriter ranges;
+
+        private Writer(CompiledSpec compiled) {
+            this.compiled = compiled;
+            this.ranges = new DatasetWriter.RangeWriter(compiled);
+        }
+
+        /** As {@link RowRanges#rows}, with this writer's tables and buffers. */
+        public void rows(long from, long to, OutputStream out) throws IOException {
+            check(compiled, from, to);
+            ranges.write(from, to, out);
+        }
+    }
+
+    private static void check(CompiledSpec compiled, long from, long to) {
         long rows = compiled.spec().rows();
         if (from < 0 || from > to || to > rows) {
             throw new IllegalArgumentException("row range must satisfy 0 <= from <= to <= " + rows + ": [" + from + ", "
                     + to + ")");
         }
-        DatasetWriter.writeRows(compiled, from, to, out);
     }
 
     /** The bytes after the last row: the JSON array's closing bracket; empty for CSV and JSON Lines. */

@@ -46,6 +46,13 @@ public final class RowSampler {
     /** Column index whose value stream drives each latent dimension. */
     private final int[] latentColumn;
     private final double[][] factor;
+    /**
+     * Each factor row's nonzero entries (indices and values, in increasing index order): a term
+     * l·z with l = 0 adds ±0.0, which never changes a sum that started at +0.0, so leaving it out
+     * gives the same bits and saves the work for block-structured targets.
+     */
+    private final int[][] factorIndex;
+    private final double[][] factorValue;
     /** The fast maps of each random column (null for sequences). */
     private final LatentQuantile[] maps;
 
@@ -82,6 +89,24 @@ public final class RowSampler {
             }
         }
         this.factor = model.factor();
+        this.factorIndex = new int[factor.length][];
+        this.factorValue = new double[factor.length][];
+        for (int p = 0; p < factor.length; p++) {
+            int nz = 0;
+            for (double l : factor[p]) {
+                if (l != 0.0) {
+                    nz++;
+                }
+            }
+            factorIndex[p] = new int[nz];
+            factorValue[p] = new double[nz];
+            for (int q = 0, j = 0; q < factor[p].length; q++) {
+                if (factor[p][q] != 0.0) {
+                    factorIndex[p][j] = q;
+                    factorValue[p][j++] = factor[p][q];
+                }
+            }
+        }
         this.maps = new LatentQuantile[columnCount];
         for (int i = 0; i < columnCount; i++) {
             if (marginals[i] != null) {
@@ -157,10 +182,11 @@ public final class RowSampler {
                 values[i] = maps[i].quantile(RandomStreams.uniform(seed, valueStream[i], row));
                 continue;
             }
-            double[] lrow = factor[p];
+            int[] idx = factorIndex[p];
+            double[] lrow = factorValue[p];
             double w = 0;
-            for (int q = 0; q < lrow.length; q++) {
-                w += lrow[q] * z[q];
+            for (int j = 0; j < lrow.length; j++) {
+                w += lrow[j] * z[idx[j]];
             }
             values[i] = maps[i].fromLatent(w);
         }
@@ -212,11 +238,12 @@ public final class RowSampler {
                 continue;
             }
             // w = L_p · z, summed over q in the same order as draw() so the bits agree
-            double[] lrow = factor[p];
+            int[] idx = factorIndex[p];
+            double[] lrow = factorValue[p];
             java.util.Arrays.fill(w, 0, n, 0.0);
-            for (int q = 0; q < lrow.length; q++) {
-                double l = lrow[q];
-                double[] zq = z[q];
+            for (int j = 0; j < lrow.length; j++) {
+                double l = lrow[j];
+                double[] zq = z[idx[j]];
                 for (int r = 0; r < n; r++) {
                     w[r] += l * zq[r];
                 }

@@ -107,14 +107,20 @@ class ThreadsAndRowRangesTest {
             CompiledSpec c = compile(withOutput(KINDS, output));
             byte[] whole = generate(c, 2, "whole" + output.hashCode()).get(0);
             long rows = c.spec().rows();
+            RowRanges.Writer writer = RowRanges.writer(c);
             for (int attempt = 0; attempt < 3; attempt++) {
                 ByteArrayOutputStream joined = new ByteArrayOutputStream();
                 joined.write(RowRanges.prologue(c));
                 long from = 0;
                 while (from < rows) {
-                    // cut points anywhere: inside blocks, at block edges, empty ranges
+                    // cut points anywhere: inside blocks, at block edges, empty ranges; the one-shot
+                    // call and a reused writer alike
                     long to = Math.min(rows, from + (attempt == 0 ? 4096 : rnd.nextLong(0, 9000)));
-                    RowRanges.rows(c, from, to, joined);
+                    if (attempt == 2) {
+                        writer.rows(from, to, joined);
+                    } else {
+                        RowRanges.rows(c, from, to, joined);
+                    }
                     from = to;
                 }
                 joined.write(RowRanges.epilogue(c));
