@@ -59,4 +59,18 @@ final class CommandLine {
         return property + " is true (" + (flag.fromCommandLine() ? "-D" + property + " on the command line" : "set in the pom")
                 + ")";
     }
+
+    /**
+     * The generating threads: {@code -Dstandin.threads} when given, else the configured number.
+     *
+     * @throws MojoFailureException when the value is not a whole number
+     */
+    static int threads(Properties userProperties, int configured) throws MojoFailureException {
+        String text = value(userProperties, PluginBridge.THREADS_PROPERTY, Integer.toString(configured));
+        try {
+            return Integer.parseInt(text.trim());
+        } catch (NumberFormatException e) {
+            throw new MojoFailureException(PluginBridge.THREADS_PROPERTY + " must be a whole number from 1 to 1024: " + text);
+        }
+    }
 }

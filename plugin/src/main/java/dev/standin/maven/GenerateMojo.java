@@ -198,7 +198,7 @@ public final class GenerateMojo extends AbstractMojo {
         PluginBridge.withLog(getLog())
                 .configured(CommandLine.flag(user, PluginBridge.REPORT_PROPERTY, report).on(),
                         CommandLine.flag(user, PluginBridge.FAIL_ON_DEVIATION_PROPERTY, failOnDeviation).on())
-                .withThreads(threadCount(user))
+                .withThreads(CommandLine.threads(user, threads))
                 .generateGoal(request, project);
     }
 
@@ -234,14 +234,5 @@ public final class GenerateMojo extends AbstractMojo {
         }
         code.put("code", Digests.codeFingerprint(parts));
         return code;
-    }
-
-    private int threadCount(Properties user) throws MojoFailureException {
-        String text = CommandLine.value(user, PluginBridge.THREADS_PROPERTY, Integer.toString(threads));
-        try {
-            return Integer.parseInt(text.trim());
-        } catch (NumberFormatException e) {
-            throw new MojoFailureException(PluginBridge.THREADS_PROPERTY + " must be a whole number from 1 to 1024: " + text);
-        }
     }
 }

@@ -129,20 +129,11 @@ public final class SampleMojo extends AbstractMojo {
         PluginBridge.withLog(getLog())
                 .configured(CommandLine.flag(user, PluginBridge.REPORT_PROPERTY, report).on(),
                         CommandLine.flag(user, PluginBridge.FAIL_ON_DEVIATION_PROPERTY, failOnDeviation).on())
-                .withThreads(threadCount(user))
+                .withThreads(CommandLine.threads(user, threads))
                 .sampleGoal(spec, base.toAbsolutePath(),
                 outputDirectory == null ? null : outputDirectory.toPath(),
                 CommandLine.value(user, PluginBridge.SEED_PROPERTY, seed),
                 CommandLine.value(user, PluginBridge.ROWS_PROPERTY, rows),
                 CommandLine.value(user, PluginBridge.FORMAT_PROPERTY, format));
-    }
-
-    private int threadCount(Properties user) throws MojoFailureException {
-        String text = CommandLine.value(user, PluginBridge.THREADS_PROPERTY, Integer.toString(threads));
-        try {
-            return Integer.parseInt(text.trim());
-        } catch (NumberFormatException e) {
-            throw new MojoFailureException(PluginBridge.THREADS_PROPERTY + " must be a whole number from 1 to 1024: " + text);
-        }
     }
 }
