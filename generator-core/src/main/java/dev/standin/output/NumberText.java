@@ -120,8 +120,14 @@ public final class NumberText {
                 return NO_FAST_PATH;
             }
             q = (hi << (64 - s)) | (lo >>> s);
+            if (q < 0 || q > (1L << 62)) {
+                return NO_FAST_PATH;
+            }
+            // the common case, without a data-dependent branch: rem and half are below 2^63, so
+            // half − rem is negative exactly when rem > half; on a tie, round to the even quotient
             long rem = lo & ((1L << s) - 1);
-            cmp = Long.compareUnsigned(rem, 1L << (s - 1));
+            long half = 1L << (s - 1);
+            return q + (((half - rem) >>> 63) | ((rem == half ? 1L : 0L) & q));
         } else if (s == 64) {
             q = hi;
             cmp = Long.compareUnsigned(lo, 1L << 63);

@@ -203,10 +203,7 @@ public final class RowSampler {
         double[] u = scratch.uBlock;
         int k = z.length;
         for (int p = 0; p < k; p++) {
-            long stream = valueStream[latentColumn[p]];
-            for (int r = 0; r < n; r++) {
-                u[r] = RandomStreams.uniform(seed, stream, from + r);
-            }
+            RandomStreams.uniforms(seed, valueStream[latentColumn[p]], from, u, n);
             NormalQuantile.of(u, z[p], n);
         }
         for (int i = 0; i < columnCount; i++) {
@@ -221,9 +218,9 @@ public final class RowSampler {
             }
             double share = nulls[i];
             if (share > 0) {
-                long stream = missingStream[i];
+                RandomStreams.uniforms(seed, missingStream[i], from, u, n);
                 for (int r = 0; r < n; r++) {
-                    miss[r] = RandomStreams.uniform(seed, stream, from + r) < share;
+                    miss[r] = u[r] < share;
                 }
             } else {
                 java.util.Arrays.fill(miss, 0, n, false);
@@ -231,9 +228,9 @@ public final class RowSampler {
             LatentQuantile map = maps[i];
             int p = latentIndex[i];
             if (p < 0) {
-                long stream = valueStream[i];
+                RandomStreams.uniforms(seed, valueStream[i], from, u, n);
                 for (int r = 0; r < n; r++) {
-                    v[r] = map.quantile(RandomStreams.uniform(seed, stream, from + r));
+                    v[r] = map.quantile(u[r]);
                 }
                 continue;
             }
