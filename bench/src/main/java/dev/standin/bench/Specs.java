@@ -74,6 +74,62 @@ final class Specs {
         return sb.toString();
     }
 
+    /**
+     * A k × k target as people write one by hand: a 5-factor correlation matrix (loadings of length
+     * √0.8) plus uniform ±0.1 noise on every pair, rounded to 2 decimals. Not positive semidefinite
+     * for k beyond a few dozen, so it needs the repair.
+     */
+    static double[][] perturbedFactor(int k, long seed) {
+        java.util.SplittableRandom random = new java.util.SplittableRandom(seed);
+        double[][] loadings = new double[k][5];
+        for (int i = 0; i < k; i++) {
+            double norm = 0;
+            for (int f = 0; f < 5; f++) {
+                loadings[i][f] = random.nextDouble(-1, 1);
+                norm += loadings[i][f] * loadings[i][f];
+            }
+            for (int f = 0; f < 5; f++) {
+                loadings[i][f] *= Math.sqrt(0.8 / norm);
+            }
+        }
+        double[][] a = new double[k][k];
+        for (int i = 0; i < k; i++) {
+            a[i][i] = 1;
+            for (int j = 0; j < i; j++) {
+                double v = 0;
+                for (int f = 0; f < 5; f++) {
+                    v += loadings[i][f] * loadings[j][f];
+                }
+                v = Math.max(-1, Math.min(1, Math.round((v + random.nextDouble(-0.1, 0.1)) * 100) / 100.0));
+                a[i][j] = v;
+                a[j][i] = v;
+            }
+        }
+        return a;
+    }
+
+    /** k latent normal columns with the given full matrix (no marginal maps): the check and repair of the matrix. */
+    static String latentSpec(double[][] matrix) {
+        int k = matrix.length;
+        StringBuilder sb = new StringBuilder("dataset: sensor-hall\nrows: 1000\nseed: 79\ncolumns:\n");
+        for (int i = 0; i < k; i++) {
+            sb.append("  s").append(i).append(": {dist: normal, mean: 0, sd: 1, decimals: 3}\n");
+        }
+        sb.append("correlation:\n  measure: latent\n  max-change: 1\n  order: [");
+        for (int i = 0; i < k; i++) {
+            sb.append(i > 0 ? ", " : "").append('s').append(i);
+        }
+        sb.append("]\n  matrix:\n");
+        for (int i = 0; i < k; i++) {
+            sb.append("    - [");
+            for (int j = 0; j < k; j++) {
+                sb.append(j > 0 ? "," : "").append(matrix[i][j]);
+            }
+            sb.append("]\n");
+        }
+        return sb.toString();
+    }
+
     static CompiledSpec compile(String yaml) throws Exception {
         return Engine.create(Overrides.none()).withoutHtmlReport().compile("bench.yaml", yaml.getBytes(StandardCharsets.UTF_8), "");
     }

@@ -50,27 +50,53 @@ final class Matrices {
     /**
      * The projection onto {X : X symmetric, λ<sub>min</sub>(X) ≥ floor} in the Frobenius norm: V
      * max(Λ, floor) V<sup>T</sup> from the eigendecomposition (Higham 2002, theorem 3.2 for floor 0),
-     * computed as A + Σ<sub>λ &lt; floor</sub> (floor − λ) v v<sup>T</sup> so that only the eigenvalues
-     * being raised cost a rank-one update.
+     * computed from whichever side has fewer eigenvectors: A + Σ<sub>λ &lt; floor</sub> (floor − λ) v v<sup>T</sup>
+     * when few eigenvalues are raised, else floor·I + Σ<sub>λ &gt; floor</sub> (λ − floor) v v<sup>T</sup>.
+     * The result is exactly symmetric.
      */
     static double[][] eigenFloor(double[][] a, double floor) {
         int n = a.length;
         SymmetricEigen e = SymmetricEigen.of(a);
-        double[][] out = new double[n][];
-        for (int i = 0; i < n; i++) {
-            out[i] = a[i].clone();
+        int below = 0;
+        while (below < n && e.values[below] < floor) {
+            below++;
         }
-        for (int p = 0; p < n && e.values[p] < floor; p++) {
-            double raise = floor - e.values[p];
-            double[] v = e.vectors[p];
+        double[][] out = new double[n][n];
+        int from;
+        int to;
+        if (below <= n - below) {
             for (int i = 0; i < n; i++) {
-                double vi = raise * v[i];
+                System.arraycopy(a[i], 0, out[i], 0, i + 1);
+            }
+            from = 0;
+            to = below;
+        } else {
+            for (int i = 0; i < n; i++) {
+                out[i][i] = floor;
+            }
+            from = below;
+            to = n;
+        }
+        int k = to - from;
+        double[] weight = new double[k];
+        double[][] vectors = new double[k][];
+        for (int p = 0; p < k; p++) {
+            weight[p] = Math.abs(floor - e.values[from + p]);
+            vectors[p] = e.vectors[from + p];
+        }
+        // row by row, so that out[i] stays in cache while the k vectors stream past; rows 0 .. n/√2 and
+        // the rest carry about equal halves of the triangle and may run side by side (disjoint rows)
+        int[] cut = n >= SymmetricEigen.PARALLEL_MIN && Runtime.getRuntime().availableProcessors() > 1
+                ? new int[] {0, (int) (n / StrictMath.sqrt(2.0)), n} : new int[] {0, n};
+        SymmetricEigen.inParts(cut.length - 1, part -> {
+            for (int i = cut[part]; i < cut[part + 1]; i++) {
                 double[] row = out[i];
-                for (int j = 0; j <= i; j++) {
-                    row[j] += vi * v[j];
+                for (int p = 0; p < k; p++) {
+                    double[] v = vectors[p];
+                    SymmetricEigen.axpy(weight[p] * v[i], v, row, 0, i + 1);
                 }
             }
-        }
+        });
         for (int i = 0; i < n; i++) {
             for (int j = 0; j < i; j++) {
                 out[j][i] = out[i][j];
@@ -81,6 +107,6 @@ final class Matrices {
 
     /** The smallest eigenvalue ({@link SymmetricEigen}). */
     static double smallestEigenvalue(double[][] a) {
-        return a.length == 0 ? Double.POSITIVE_INFINITY : SymmetricEigen.of(a).values[0];
+        return a.length == 0 ? Double.POSITIVE_INFINITY : SymmetricEigen.values(a)[0];
     }
 }

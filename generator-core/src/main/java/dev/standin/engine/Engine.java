@@ -78,7 +78,7 @@ public final class Engine {
             }
             if (Files.size(file) > SpecParser.MAX_SPEC_BYTES) {
                 throw new SpecException(SpecProblem.at(Mark.startOf(displayName), "spec is " + Files.size(file)
-                        + " bytes; the limit is " + SpecParser.MAX_SPEC_BYTES + " bytes (1 MiB)"));
+                        + " bytes; the limit is " + SpecParser.MAX_SPEC_SIZE));
             }
             bytes = Files.readAllBytes(file);
         } catch (NoSuchFileException e) {

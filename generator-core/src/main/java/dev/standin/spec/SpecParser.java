@@ -35,8 +35,14 @@ import org.yaml.snakeyaml.nodes.SequenceNode;
  */
 public final class SpecParser {
 
-    /** The largest spec file accepted, in bytes. */
-    public static final int MAX_SPEC_BYTES = 1 << 20;
+    /**
+     * The largest spec file accepted, in bytes: 4 MiB, room for a full 500 × 500 matrix (the largest
+     * correlation block) written with four decimals.
+     */
+    public static final int MAX_SPEC_BYTES = 4 << 20;
+
+    /** The size limit as the error messages give it. */
+    public static final String MAX_SPEC_SIZE = MAX_SPEC_BYTES + " bytes (" + (MAX_SPEC_BYTES >> 20) + " MiB)";
 
     /** The largest number of rows: 2<sup>40</sup>. */
     public static final long MAX_ROWS = 1L << 40;
@@ -83,7 +89,7 @@ public final class SpecParser {
     public Spec parse(String file, byte[] bytes) throws SpecException {
         if (bytes.length > MAX_SPEC_BYTES) {
             throw new SpecException(SpecProblem.at(Mark.startOf(file), "spec is " + bytes.length
-                    + " bytes; the limit is " + MAX_SPEC_BYTES + " bytes (1 MiB)"));
+                    + " bytes; the limit is " + MAX_SPEC_SIZE));
         }
         String text;
         try {

@@ -1,5 +1,6 @@
 package dev.standin.correlation;
 
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -17,7 +18,7 @@ class SymmetricEigenTest {
     @Test
     void agreesWithCommonsMathAndEjml() {
         SplittableRandom random = new SplittableRandom(99);
-        for (int n : new int[] {1, 2, 3, 7, 30, 120}) {
+        for (int n : new int[] {1, 2, 3, 7, 30, 120, 201}) {
             double[][] a = new double[n][n];
             for (int i = 0; i < n; i++) {
                 for (int j = 0; j <= i; j++) {
@@ -77,5 +78,28 @@ class SymmetricEigenTest {
         SymmetricEigen o = SymmetricEigen.of(ones);
         assertEquals(0, o.values[0], 1e-14);
         assertEquals(4, o.values[3], 1e-14);
+    }
+
+    @Test
+    void halvesSideBySideGiveTheSameBitsAsOneThread() {
+        // the parallel path (n >= PARALLEL_MIN) must not change a single bit, nor may the values-only path
+        SplittableRandom random = new SplittableRandom(7);
+        for (int n : new int[] {SymmetricEigen.PARALLEL_MIN, 257}) {
+            double[][] a = new double[n][n];
+            for (int i = 0; i < n; i++) {
+                for (int j = 0; j <= i; j++) {
+                    double v = random.nextDouble(-1, 1);
+                    a[i][j] = v;
+                    a[j][i] = v;
+                }
+            }
+            SymmetricEigen split = SymmetricEigen.of(a, true);
+            SymmetricEigen single = SymmetricEigen.of(a, false);
+            assertArrayEquals(single.values, split.values, 0.0);
+            assertArrayEquals(single.values, SymmetricEigen.values(a), 0.0);
+            for (int p = 0; p < n; p++) {
+                assertArrayEquals(single.vectors[p], split.vectors[p], 0.0, "n=" + n + " vector " + p);
+            }
+        }
     }
 }

@@ -110,9 +110,9 @@ class SpecParserTest {
 
     @Test
     void tooLargeOrNotUtf8() {
-        byte[] big = new byte[(1 << 20) + 1];
+        byte[] big = new byte[(4 << 20) + 1];
         Arrays.fill(big, (byte) ' ');
-        assertEquals(List.of(at(1, 1, "spec is 1048577 bytes; the limit is 1048576 bytes (1 MiB)")), problems(big));
+        assertEquals(List.of(at(1, 1, "spec is 4194305 bytes; the limit is 4194304 bytes (4 MiB)")), problems(big));
         // 0xFF never occurs in UTF-8 (RFC 3629, section 1)
         assertEquals(List.of(at(1, 1, "spec is not valid UTF-8 text")), problems(new byte[] {'d', (byte) 0xFF, '\n'}));
     }
@@ -444,8 +444,8 @@ class SpecParserTest {
         e = assertThrows(SpecException.class, () -> engine.compile(dir, "specs", ""));
         assertEquals("specs:1:1: is a directory, not a spec file", e.getMessage());
         Path big = dir.resolve("big.yaml");
-        Files.write(big, new byte[(1 << 20) + 10]);
+        Files.write(big, new byte[(4 << 20) + 10]);
         e = assertThrows(SpecException.class, () -> engine.compile(big, "specs/big.yaml", ""));
-        assertEquals("specs/big.yaml:1:1: spec is 1048586 bytes; the limit is 1048576 bytes (1 MiB)", e.getMessage());
+        assertEquals("specs/big.yaml:1:1: spec is 4194314 bytes; the limit is 4194304 bytes (4 MiB)", e.getMessage());
     }
 }
