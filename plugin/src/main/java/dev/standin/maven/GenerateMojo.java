@@ -9,7 +9,6 @@ import java.util.Map;
 import java.util.Properties;
 import org.apache.maven.artifact.Artifact;
 import org.apache.maven.execution.MavenSession;
-import org.apache.maven.plugin.AbstractMojo;
 import org.apache.maven.plugin.MojoExecution;
 import org.apache.maven.plugin.MojoExecutionException;
 import org.apache.maven.plugin.MojoFailureException;
@@ -64,7 +63,7 @@ import org.apache.maven.project.MavenProject;
  * @since 0.1.0
  */
 @Mojo(name = "generate", defaultPhase = LifecyclePhase.GENERATE_TEST_RESOURCES, threadSafe = true)
-public final class GenerateMojo extends AbstractMojo {
+public final class GenerateMojo extends AbstractDatasetMojo {
 
     /**
      * The folder searched, at any depth, for spec files ending in {@code .yaml} or {@code .yml}
@@ -91,33 +90,6 @@ public final class GenerateMojo extends AbstractMojo {
     private File outputDirectory;
 
     /**
-     * Replaces the {@code seed} of every spec: a 64-bit integer. Unset keeps each spec's own seed.
-     * {@code -Dstandin.seed} wins over a value in the pom.
-     *
-     * @since 0.1.0
-     */
-    @Parameter(property = "standin.seed")
-    private String seed;
-
-    /**
-     * Replaces the {@code rows} of every spec: a whole number from 0 to 2^40. Unset keeps each
-     * spec's own row count. {@code -Dstandin.rows} wins over a value in the pom.
-     *
-     * @since 0.1.0
-     */
-    @Parameter(property = "standin.rows")
-    private String rows;
-
-    /**
-     * Replaces the output format of every spec: {@code csv}, {@code json} or {@code jsonl}. Unset
-     * keeps each spec's own format. {@code -Dstandin.format} wins over a value in the pom.
-     *
-     * @since 0.1.0
-     */
-    @Parameter(property = "standin.format")
-    private String format;
-
-    /**
      * Skips generation (a log line says why); nothing is written or deleted and no test resource is
      * added. {@code -Dstandin.skip} (or {@code -Dstandin.skip=false}) wins over a value in the pom.
      *
@@ -134,37 +106,6 @@ public final class GenerateMojo extends AbstractMojo {
      */
     @Parameter(property = "standin.force", defaultValue = "false")
     private boolean force;
-
-    /**
-     * Fails the build when a fidelity check of the written data fails (a column's mean, sd, missing
-     * fraction or distribution, or a pair's correlation, outside its sampling-theory tolerance), naming
-     * the dataset, the column or pair and the numbers; {@code false} only warns. The files are written
-     * either way. {@code -Dstandin.failOnDeviation} wins over a value in the pom.
-     *
-     * @since 0.1.0
-     */
-    @Parameter(property = "standin.failOnDeviation", defaultValue = "true")
-    private boolean failOnDeviation;
-
-    /**
-     * Writes {@code <dataset>.report.html} beside each data file (a spec's {@code output.report: false}
-     * also switches it off); the JSON report is always written. {@code -Dstandin.report} wins over a
-     * value in the pom.
-     *
-     * @since 0.1.0
-     */
-    @Parameter(property = "standin.report", defaultValue = "true")
-    private boolean report;
-
-    /**
-     * Generates rows on this many threads (0, the default, uses the processors available). The files
-     * are byte-identical for any number; lower it when a parallel build ({@code mvn -T}) already keeps
-     * every core busy. {@code -Dstandin.threads} wins over a value in the pom.
-     *
-     * @since 0.1.0
-     */
-    @Parameter(property = "standin.threads", defaultValue = "0")
-    private int threads;
 
     /** The project whose test resources receive the output folder. */
     @Parameter(defaultValue = "${project}", readonly = true, required = true)
@@ -189,17 +130,11 @@ public final class GenerateMojo extends AbstractMojo {
         CommandLine.Flag forceFlag = CommandLine.flag(user, PluginBridge.FORCE_PROPERTY, force);
         PluginBridge.GenerateRequest request = PluginBridge.GenerateRequest
                 .of(specDirectory.toPath(), outputDirectory.toPath())
-                .overriding(CommandLine.value(user, PluginBridge.SEED_PROPERTY, seed),
-                        CommandLine.value(user, PluginBridge.ROWS_PROPERTY, rows),
-                        CommandLine.value(user, PluginBridge.FORMAT_PROPERTY, format))
+                .overriding(seed(user), rows(user), format(user))
                 .skipped(skipFlag.on() ? CommandLine.reason(PluginBridge.SKIP_PROPERTY, skipFlag) : null)
                 .forced(forceFlag.on() ? CommandLine.reason(PluginBridge.FORCE_PROPERTY, forceFlag) : null)
                 .withState(stateFile(), code());
-        PluginBridge.withLog(getLog())
-                .configured(CommandLine.flag(user, PluginBridge.REPORT_PROPERTY, report).on(),
-                        CommandLine.flag(user, PluginBridge.FAIL_ON_DEVIATION_PROPERTY, failOnDeviation).on())
-                .withThreads(CommandLine.threads(user, threads))
-                .generateGoal(request, project);
+        bridge(user).generateGoal(request, project);
     }
 
     /** {@code target/maven-status/standin-maven-plugin/generate/<execution id>/state.json}. */

@@ -5,7 +5,6 @@ import java.nio.file.Path;
 import java.nio.file.Paths;
 import java.util.Properties;
 import org.apache.maven.execution.MavenSession;
-import org.apache.maven.plugin.AbstractMojo;
 import org.apache.maven.plugin.MojoExecutionException;
 import org.apache.maven.plugin.MojoFailureException;
 import org.apache.maven.plugins.annotations.Mojo;
@@ -40,7 +39,7 @@ import org.apache.maven.plugins.annotations.Parameter;
  * @since 0.1.0
  */
 @Mojo(name = "sample", requiresProject = false, threadSafe = true)
-public final class SampleMojo extends AbstractMojo {
+public final class SampleMojo extends AbstractDatasetMojo {
 
     /**
      * The spec files to generate, comma-separated, relative to the folder Maven was started in (or
@@ -60,60 +59,6 @@ public final class SampleMojo extends AbstractMojo {
     @Parameter(property = "standin.outputDirectory")
     private File outputDirectory;
 
-    /**
-     * Replaces the {@code seed} of every spec: a 64-bit integer. {@code -Dstandin.seed} wins over a value in
-     * the pom.
-     *
-     * @since 0.1.0
-     */
-    @Parameter(property = "standin.seed")
-    private String seed;
-
-    /**
-     * Replaces the {@code rows} of every spec: a whole number from 0 to 2^40. {@code -Dstandin.rows} wins over a value in
-     * the pom.
-     *
-     * @since 0.1.0
-     */
-    @Parameter(property = "standin.rows")
-    private String rows;
-
-    /**
-     * Replaces the output format of every spec: {@code csv}, {@code json} or {@code jsonl}. {@code -Dstandin.format} wins over a value in
-     * the pom.
-     *
-     * @since 0.1.0
-     */
-    @Parameter(property = "standin.format")
-    private String format;
-
-    /**
-     * Fails the build when a fidelity check of the written data fails; {@code false} only warns. The
-     * files are written either way.
-     *
-     * @since 0.1.0
-     */
-    @Parameter(property = "standin.failOnDeviation", defaultValue = "true")
-    private boolean failOnDeviation;
-
-    /**
-     * Writes {@code <dataset>.report.html} beside each data file; the JSON report is always written.
-     *
-     * @since 0.1.0
-     */
-    @Parameter(property = "standin.report", defaultValue = "true")
-    private boolean report;
-
-    /**
-     * Generates rows on this many threads (0, the default, uses the processors available). The files
-     * are byte-identical for any number; lower it when a parallel build ({@code mvn -T}) already keeps
-     * every core busy. {@code -Dstandin.threads} wins over a value in the pom.
-     *
-     * @since 0.1.0
-     */
-    @Parameter(property = "standin.threads", defaultValue = "0")
-    private int threads;
-
     /** The build, for the {@code -D} user properties that win over the pom. */
     @Parameter(defaultValue = "${session}", readonly = true)
     private MavenSession session;
@@ -126,14 +71,7 @@ public final class SampleMojo extends AbstractMojo {
     public void execute() throws MojoExecutionException, MojoFailureException {
         Path base = startDirectory != null ? startDirectory.toPath() : Paths.get(System.getProperty("user.dir"));
         Properties user = session == null ? null : session.getUserProperties();
-        PluginBridge.withLog(getLog())
-                .configured(CommandLine.flag(user, PluginBridge.REPORT_PROPERTY, report).on(),
-                        CommandLine.flag(user, PluginBridge.FAIL_ON_DEVIATION_PROPERTY, failOnDeviation).on())
-                .withThreads(CommandLine.threads(user, threads))
-                .sampleGoal(spec, base.toAbsolutePath(),
-                outputDirectory == null ? null : outputDirectory.toPath(),
-                CommandLine.value(user, PluginBridge.SEED_PROPERTY, seed),
-                CommandLine.value(user, PluginBridge.ROWS_PROPERTY, rows),
-                CommandLine.value(user, PluginBridge.FORMAT_PROPERTY, format));
+        bridge(user).sampleGoal(spec, base.toAbsolutePath(), outputDirectory == null ? null : outputDirectory.toPath(),
+                seed(user), rows(user), format(user));
     }
 }
