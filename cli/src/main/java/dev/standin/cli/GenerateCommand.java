@@ -105,6 +105,7 @@ final class GenerateCommand implements Command {
         }
         List<GenerationResult> results = new java.util.ArrayList<>();
         SpecBatch batch = SpecBatch.compile(engine, specs, console);
+        batch.printWarnings(console);
         if (batch.exitCode() != 0) {
             batch.printFailures(console);
             return batch.exitCode();

@@ -182,6 +182,15 @@ final class SpecBatch {
     }
 
     /** Prints every problem and read failure, one a line, in command-line order. */
+    /** Prints every compiled spec's warnings (a correlation repair within max-change, and the like) to stderr. */
+    void printWarnings(Console console) {
+        for (Entry e : entries) {
+            if (e.compiled() != null) {
+                e.compiled().warnings().forEach(console.err()::println);
+            }
+        }
+    }
+
     void printFailures(Console console) {
         for (Entry e : entries) {
             for (SpecProblem p : e.problems()) {

@@ -33,6 +33,7 @@ final class ValidateCommand implements Command {
     public int run(Arguments args, Console console) throws UsageException {
         List<String> specs = OptionValues.specs(NAME, args.operands());
         SpecBatch batch = SpecBatch.compile(Engine.create(Overrides.none()), specs, console);
+        batch.printWarnings(console);
         for (SpecBatch.Entry e : batch.entries()) {
             if (e.ok()) {
                 console.out().println(e.name() + ": ok");

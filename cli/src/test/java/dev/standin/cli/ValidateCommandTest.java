@@ -28,6 +28,24 @@ class ValidateCommandTest {
     }
 
     @Test
+    void warnsOnStderrWhenARepairStaysWithinMaxChange() throws Exception {
+        // a ~ b = b ~ c = 0.6 with a ~ c = -0.6 is not positive semidefinite (det = 1 - 3·0.36 - 2·0.216 < 0)
+        CliRun.spec(dir, "vents.yaml", "dataset: vents\nrows: 10\nseed: 1\ncolumns:\n"
+                + "  a: {dist: normal, mean: 0, sd: 1}\n  b: {dist: normal, mean: 0, sd: 1}\n  c: {dist: normal, mean: 0, sd: 1}\n"
+                + "correlation:\n  measure: latent\n  max-change: 0.2\n  pairs: {a ~ b: 0.6, b ~ c: 0.6, a ~ c: -0.6}\n");
+
+        CliRun run = CliRun.in(dir, "validate", "vents.yaml");
+
+        assertEquals(0, run.exit(), run.err());
+        assertEquals("vents.yaml: ok\n", run.out());
+        List<String> err = run.errLines();
+        assertEquals(1, err.size(), run.err());
+        // the place is the pairs mapping (line 11, column 10); the repaired values come from the core (its own tests check them)
+        assertEquals("vents.yaml:11:10: warning: correlation matrix repaired by nearest (max change 0.1000): a ~ b 0.6 → 0.5000,"
+                + " a ~ c -0.6 → -0.5000, b ~ c 0.6 → 0.5000", err.get(0));
+    }
+
+    @Test
     void reportsEachInvalidSpecAndStillConfirmsTheValidOnes() throws Exception {
         String bad = CliRun.greenhouse("bad-house").replace("max: 90", "max: 30");
         CliRun.spec(dir, "good.yaml", CliRun.greenhouse("good-house"));

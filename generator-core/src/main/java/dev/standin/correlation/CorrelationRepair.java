@@ -13,13 +13,16 @@ import java.util.List;
  *   pairs are chosen by the maximum-determinant rule ({@link MaxDetCompletion}), starting from a
  *   positive definite point found by alternating projections with the specified pairs held fixed
  *   ({@link NearestCorrelation#project}). When the specified pairs only admit singular completions,
- *   the projection's semidefinite limit is used.</li>
+ *   the projection's semidefinite limit is used. When they admit none, the projection's distance
+ *   between the two sets levels off and the run stops there.</li>
  *   <li>A matrix that is still not positive semidefinite (a full matrix, or specified pairs that are
  *   inconsistent) is repaired by the policy: {@code nearest} — Higham's nearest correlation matrix;
  *   with free pairs, the alternation of Higham's projection with resetting the specified pairs,
  *   which converges to the valid matrix whose specified pairs are nearest the request (W. Cheney and
- *   A. A. Goldstein, "Proximity maps for convex sets", Proc. AMS 10 (1959) 448-450); {@code clip} —
- *   {@link EigenClip}; {@code fail} — an error with the {@link Definiteness} diagnostic.</li>
+ *   A. A. Goldstein, "Proximity maps for convex sets", Proc. AMS 10 (1959) 448-450), run as a
+ *   fixed-point iteration on the free pairs with {@link AndersonMixing} and each projection started
+ *   from the previous one's diagonal correction; {@code clip} — {@link EigenClip}; {@code fail} — an
+ *   error with the {@link Definiteness} diagnostic.</li>
  * </ol>
  */
 public final class CorrelationRepair {
@@ -30,6 +33,8 @@ public final class CorrelationRepair {
     private static final double COMPLETION_FLOOR = 1e-6;
     private static final int PROJECTION_LIMIT = 20_000;
     private static final int OUTER_LIMIT = 500;
+    /** Below this relative gap a failed positive definite completion is retried with singular ones allowed. */
+    private static final double SINGULAR_GAP = 1e-6;
 
     /** One specified pair's change. */
     public record Change(int i, int j, double from, double to) {
@@ -89,17 +94,21 @@ public final class CorrelationRepair {
         if (anyFree) {
             double[][] pd = start;
             if (MaxDetCompletion.inverse(start) == null) {
+                // a positive definite completion, if there is one; the run stops early when the pairs given admit none
                 NearestCorrelation.Result r = NearestCorrelation.project(start, not(free), COMPLETION_FLOOR,
-                        NearestCorrelation.DEFAULT_TOLERANCE, PROJECTION_LIMIT);
+                        NearestCorrelation.DEFAULT_TOLERANCE, PROJECTION_LIMIT, NearestCorrelation.MEMORY, null, true);
                 iterations += r.iterations();
-                pd = MaxDetCompletion.inverse(r.matrix()) != null ? r.matrix() : null;
-                if (pd == null) {
+                pd = r.converged() && MaxDetCompletion.inverse(r.matrix()) != null ? r.matrix() : null;
+                if (pd == null && r.gap() < SINGULAR_GAP) {
+                    // so close that only singular completions may exist (|ρ| = 1 among the pairs given)
                     NearestCorrelation.Result r0 = NearestCorrelation.project(start, not(free), 0.0,
-                            NearestCorrelation.DEFAULT_TOLERANCE, PROJECTION_LIMIT);
+                            NearestCorrelation.DEFAULT_TOLERANCE, PROJECTION_LIMIT, NearestCorrelation.MEMORY, null, true);
                     iterations += r0.iterations();
                     if (r0.converged() && isPsd(r0.matrix())) {
                         return outcome(requested, r0.matrix(), "completion", iterations, free);
                     }
+                }
+                if (pd == null) {
                     start = r.matrix();
                 }
             }
@@ -124,24 +133,61 @@ public final class CorrelationRepair {
             iterations += r.iterations();
             result = r.matrix();
         } else {
-            double[][] y = start;
-            double[][] x = null;
-            for (int outer = 0; outer < OUTER_LIMIT; outer++) {
-                NearestCorrelation.Result r = NearestCorrelation.nearest(y);
-                iterations += r.iterations();
-                double change = x == null ? Double.POSITIVE_INFINITY : Matrices.distance(r.matrix(), x) / Matrices.norm(r.matrix());
-                x = r.matrix();
-                y = Matrices.copy(x);
-                for (int i = 0; i < n; i++) {
-                    for (int j = 0; j < n; j++) {
-                        if (i != j && !free[i][j]) {
-                            y[i][j] = requested[i][j];
+            int[] row = new int[0];
+            int[] col = new int[0];
+            int count = 0;
+            for (int i = 0; i < n; i++) {
+                for (int j = 0; j < i; j++) {
+                    if (free[i][j]) {
+                        if (count == row.length) {
+                            row = java.util.Arrays.copyOf(row, Math.max(16, 2 * count));
+                            col = java.util.Arrays.copyOf(col, row.length);
                         }
+                        row[count] = i;
+                        col[count] = j;
+                        count++;
                     }
                 }
-                if (change <= 1e-10) {
+            }
+            double[] weight = new double[count];
+            java.util.Arrays.fill(weight, 2.0);
+            double[] yFree = new double[count];
+            for (int t = 0; t < count; t++) {
+                yFree[t] = start[row[t]][col[t]];
+            }
+            // Cheney-Goldstein: X = nearest(Y), Y = X with the pairs given reset, as a fixed-point
+            // iteration on the free pairs with Anderson mixing; each nearest() starts from the last one's
+            // diagonal correction (the same limit, a few eigendecompositions instead of a full run)
+            AndersonMixing mixing = new AndersonMixing(NearestCorrelation.MEMORY, weight);
+            double[] warm = new double[n];
+            double[][] x = null;
+            for (int outer = 0; outer < OUTER_LIMIT; outer++) {
+                double[][] y = Matrices.copy(requested);
+                for (int i = 0; i < n; i++) {
+                    y[i][i] = 1.0;
+                }
+                for (int t = 0; t < count; t++) {
+                    y[row[t]][col[t]] = yFree[t];
+                    y[col[t]][row[t]] = yFree[t];
+                }
+                NearestCorrelation.Result r = NearestCorrelation.project(y, null, 0.0, NearestCorrelation.DEFAULT_TOLERANCE,
+                        NearestCorrelation.DEFAULT_MAX_ITERATIONS, NearestCorrelation.MEMORY, warm, false);
+                iterations += r.iterations();
+                double norm = Matrices.norm(r.matrix());
+                double change = x == null ? Double.POSITIVE_INFINITY : Matrices.distance(r.matrix(), x) / norm;
+                x = r.matrix();
+                double[] next = new double[count];
+                double[] residual = new double[count];
+                double residual2 = 0;
+                for (int t = 0; t < count; t++) {
+                    next[t] = x[row[t]][col[t]];
+                    residual[t] = next[t] - yFree[t];
+                    residual2 += 2 * residual[t] * residual[t];
+                }
+                if (Math.max(change, StrictMath.sqrt(residual2) / norm) <= 1e-10) {
                     break;
                 }
+                yFree = mixing.next(next, residual);
             }
             result = x;
         }

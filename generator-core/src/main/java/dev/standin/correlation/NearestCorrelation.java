@@ -43,8 +43,12 @@ public final class NearestCorrelation {
      */
     static final int MEMORY = 8;
 
-    /** The outcome: the matrix (from U, so exactly unit diagonal), iterations and whether it converged. */
-    public record Result(double[][] matrix, int iterations, boolean converged) {
+    /**
+     * The outcome: the matrix (from U, so exactly unit diagonal), iterations, whether it converged,
+     * and the last relative distance ‖Y − X‖/‖Y‖ between the two sets' iterates (near 0 when S ∩ U is
+     * not empty; it levels off at the sets' gap when it is, as when fixed entries admit no valid matrix).
+     */
+    public record Result(double[][] matrix, int iterations, boolean converged, double gap) {
     }
 
     private NearestCorrelation() {
@@ -65,19 +69,37 @@ public final class NearestCorrelation {
      * @param maxIterations stop after this many iterations (then {@code converged} is false)
      */
     public static Result project(double[][] a, boolean[][] fixed, double floor, double tolerance, int maxIterations) {
-        return project(a, fixed, floor, tolerance, maxIterations, MEMORY);
+        return project(a, fixed, floor, tolerance, maxIterations, MEMORY, null, false);
     }
 
-    /** As {@link #project(double[][], boolean[][], double, double, int)} with the given Anderson memory (0: plain Dykstra). */
-    static Result project(double[][] a, boolean[][] fixed, double floor, double tolerance, int maxIterations, int memory) {
+    /** Iterations before {@code stopWhenStalled} may end a run, and the window it compares. */
+    private static final int STALL_AFTER = 50;
+    private static final int STALL_WINDOW = 25;
+
+    /**
+     * As {@link #project(double[][], boolean[][], double, double, int)}, with the given Anderson memory
+     * (0: plain Dykstra), optionally warm-started and stopping early when the sets do not meet.
+     *
+     * @param warm null, or the correction on the support (the n diagonal entries, then the fixed pairs
+     *        in row order) to start from, overwritten with the final one. Any start gives the same
+     *        limit: a fixed point Z = P<sub>U</sub>(A) + D with P<sub>S</sub>(Z) ∈ U satisfies the optimality
+     *        conditions A − X ∈ N<sub>S</sub>(X) + N<sub>U</sub>(X) (D lies in U's normal space), so the
+     *        previous solve's correction speeds up a sequence of nearby problems.
+     * @param stopWhenStalled stop (not converged) once the smallest ‖Y − X‖/‖Y‖ of the last
+     *        {@value #STALL_WINDOW} iterations is no better than 0.99 times the smallest before them, after
+     *        {@value #STALL_AFTER} iterations: the sign that S ∩ U is empty (the distance levels off at the gap)
+     */
+    static Result project(double[][] a, boolean[][] fixed, double floor, double tolerance, int maxIterations, int memory,
+                          double[] warm, boolean stopWhenStalled) {
         int n = a.length;
         Support u = Support.of(a, fixed);
         // Z = P_U(A) + (the correction dz on the support)
         double[][] base = Matrices.copy(a);
         Matrices.symmetrize(base);
         u.set(base, u.target);
-        double[] dz = new double[u.size()];
-        Anderson anderson = new Anderson(memory, u.weight);
+        double[] dz = warm != null && warm.length == u.size() ? warm.clone() : new double[u.size()];
+        double[] gaps = new double[Math.max(1, Math.min(maxIterations, 1024))];
+        AndersonMixing anderson = new AndersonMixing(memory, u.weight);
         double[][] x = null;
         for (int k = 1; k <= maxIterations; k++) {
             double[][] z = Matrices.copy(base);
@@ -118,10 +140,18 @@ public final class NearestCorrelation {
             double dy = x == null ? Double.POSITIVE_INFINITY : StrictMath.sqrt(Math.max(0.0, dxx - onSupportDx2)) / normY;
             double dxy = StrictMath.sqrt(fNorm2) / normY;
             x = xNew;
-            if (Math.max(Math.max(dx, dy), dxy) <= tolerance || k == maxIterations) {
+            if (k > gaps.length) {
+                gaps = java.util.Arrays.copyOf(gaps, 2 * gaps.length);
+            }
+            gaps[k - 1] = dxy;
+            boolean converged = Math.max(Math.max(dx, dy), dxy) <= tolerance;
+            if (converged || k == maxIterations || stopWhenStalled && stalled(gaps, k)) {
                 double[][] y = Matrices.copy(xNew);
                 u.set(y, u.target);
-                return new Result(y, k, k < maxIterations || Math.max(Math.max(dx, dy), dxy) <= tolerance);
+                if (warm != null && warm.length == dz.length) {
+                    System.arraycopy(dz, 0, warm, 0, dz.length);
+                }
+                return new Result(y, k, converged, dxy);
             }
             double[] g = new double[dz.length];
             for (int t = 0; t < g.length; t++) {
@@ -130,6 +160,22 @@ public final class NearestCorrelation {
             dz = anderson.next(g, f);
         }
         throw new IllegalArgumentException("maxIterations must be at least 1: " + maxIterations);
+    }
+
+    /** True when the last STALL_WINDOW gaps did not get below 0.99 times the best gap before them. */
+    private static boolean stalled(double[] gaps, int k) {
+        if (k < STALL_AFTER) {
+            return false;
+        }
+        double before = Double.POSITIVE_INFINITY;
+        for (int i = 0; i < k - STALL_WINDOW; i++) {
+            before = Math.min(before, gaps[i]);
+        }
+        double recent = Double.POSITIVE_INFINITY;
+        for (int i = k - STALL_WINDOW; i < k; i++) {
+            recent = Math.min(recent, gaps[i]);
+        }
+        return recent >= 0.99 * before;
     }
 
     /** The positions P_U sets: the diagonal and the fixed pairs (i > j), each with its value and Frobenius weight. */
@@ -200,120 +246,6 @@ public final class NearestCorrelation {
                 m[row[t]][col[t]] = s;
                 m[col[t]][row[t]] = s;
             }
-        }
-    }
-
-    /**
-     * Anderson mixing for z ← g(z) with residual f = g(z) − z, in the weighted inner product that
-     * makes it the Frobenius one on the matrices: keeps the last {@code memory} differences ΔF, ΔG
-     * of f and g (oldest first), solves min ‖f − ΔF γ‖ by the normal equations (dropping the oldest
-     * difference while they are ill-conditioned) and returns g − ΔG γ.
-     */
-    private static final class Anderson {
-        private final int memory;
-        private final double[] weight;
-        private final List<double[]> df = new ArrayList<>();
-        private final List<double[]> dg = new ArrayList<>();
-        private double[] fPrev;
-        private double[] gPrev;
-
-        Anderson(int memory, double[] weight) {
-            this.memory = memory;
-            this.weight = weight;
-        }
-
-        double[] next(double[] g, double[] f) {
-            if (memory == 0) {
-                return g;
-            }
-            if (fPrev != null) {
-                double[] dfk = new double[f.length];
-                double[] dgk = new double[g.length];
-                for (int t = 0; t < f.length; t++) {
-                    dfk[t] = f[t] - fPrev[t];
-                    dgk[t] = g[t] - gPrev[t];
-                }
-                if (df.size() == memory) {
-                    df.remove(0);
-                    dg.remove(0);
-                }
-                df.add(dfk);
-                dg.add(dgk);
-            }
-            fPrev = f;
-            gPrev = g;
-            while (!df.isEmpty()) {
-                double[] gamma = leastSquares(f);
-                if (gamma != null) {
-                    double[] out = g.clone();
-                    for (int p = 0; p < gamma.length; p++) {
-                        double[] d = dg.get(p);
-                        for (int t = 0; t < out.length; t++) {
-                            out[t] -= gamma[p] * d[t];
-                        }
-                    }
-                    return out;
-                }
-                df.remove(0);
-                dg.remove(0);
-            }
-            return g;
-        }
-
-        /** γ minimising ‖f − ΔF γ‖ by Cholesky on ΔF<sup>T</sup>ΔF, or null when that is ill-conditioned. */
-        private double[] leastSquares(double[] f) {
-            int m = df.size();
-            double[][] l = new double[m][m];
-            double[] rhs = new double[m];
-            double largest = 0;
-            for (int p = 0; p < m; p++) {
-                rhs[p] = dot(df.get(p), f);
-                for (int q = 0; q <= p; q++) {
-                    l[p][q] = dot(df.get(p), df.get(q));
-                }
-                largest = Math.max(largest, l[p][p]);
-            }
-            for (int p = 0; p < m; p++) {
-                for (int q = 0; q <= p; q++) {
-                    double s = l[p][q];
-                    for (int r = 0; r < q; r++) {
-                        s -= l[p][r] * l[q][r];
-                    }
-                    if (p == q) {
-                        // a pivot below 1e-14 of the largest diagonal entry: condition number beyond ~1e14
-                        if (!(s > 1e-14 * largest)) {
-                            return null;
-                        }
-                        l[p][p] = StrictMath.sqrt(s);
-                    } else {
-                        l[p][q] = s / l[q][q];
-                    }
-                }
-            }
-            double[] gamma = new double[m];
-            for (int p = 0; p < m; p++) {
-                double s = rhs[p];
-                for (int r = 0; r < p; r++) {
-                    s -= l[p][r] * gamma[r];
-                }
-                gamma[p] = s / l[p][p];
-            }
-            for (int p = m - 1; p >= 0; p--) {
-                double s = gamma[p];
-                for (int r = p + 1; r < m; r++) {
-                    s -= l[r][p] * gamma[r];
-                }
-                gamma[p] = s / l[p][p];
-            }
-            return gamma;
-        }
-
-        private double dot(double[] a, double[] b) {
-            double s = 0;
-            for (int t = 0; t < a.length; t++) {
-                s += weight[t] * a[t] * b[t];
-            }
-            return s;
         }
     }
 }

@@ -80,6 +80,36 @@ class CorrelationRepairTest {
     }
 
     @Test
+    void inconsistentPairsAmongFreePairsMoveOnlyWhereTheyMust() throws Exception {
+        // the triangle above inside five columns: a, b, c as before, c ~ d = 0.2, d ~ e = 0.3, the other
+        // pairs free. Any valid matrix has a valid a, b, c block, so the triangle must move at least to its
+        // own nearest matrix (±0.5 above, unique); that block extends with c ~ d and d ~ e kept (a chain
+        // hanging off c), so the closest choice moves the triangle to ±0.5 and nothing else (argument, not a table).
+        double n = Double.NaN;
+        double[][] a = {
+            {1, 0.9, -0.9, n, n},
+            {0.9, 1, 0.9, n, n},
+            {-0.9, 0.9, 1, 0.2, n},
+            {n, n, 0.2, 1, 0.3},
+            {n, n, n, 0.3, 1}};
+        CorrelationRepair.Outcome o = CorrelationRepair.repair(a, RepairPolicy.NEAREST);
+        assertEquals("nearest", o.method());
+        double[][] x = o.matrix();
+        assertEquals(0.5, x[0][1], 1e-6);
+        assertEquals(0.5, x[1][2], 1e-6);
+        assertEquals(-0.5, x[0][2], 1e-6);
+        assertEquals(0.2, x[2][3], 1e-6);
+        assertEquals(0.3, x[3][4], 1e-6);
+        assertEquals(0.4, o.maxChange(), 1e-6);
+        // eigenvalues by commons-math3, an independent library: the result is a valid correlation matrix
+        double[] ev = new org.apache.commons.math3.linear.EigenDecomposition(
+                new org.apache.commons.math3.linear.Array2DRowRealMatrix(x)).getRealEigenvalues();
+        for (double v : ev) {
+            assertTrue(v > -1e-9, "eigenvalue " + v);
+        }
+    }
+
+    @Test
     void failPolicyExplainsWithTheSmallestEigenvalue() {
         double[][] a = {{1, 1, 0}, {1, 1, 1}, {0, 1, 1}};
         CorrelationRepair.NotPositiveSemidefiniteException e = assertThrows(

@@ -81,8 +81,8 @@ class NearestCorrelationTest {
                 }
             }
             double floor = trial % 4 == 3 ? 1e-6 : 0.0;
-            NearestCorrelation.Result accelerated = NearestCorrelation.project(a, fixed, floor, 1e-13, 100_000, NearestCorrelation.MEMORY);
-            NearestCorrelation.Result plain = NearestCorrelation.project(a, fixed, floor, 1e-13, 100_000, 0);
+            NearestCorrelation.Result accelerated = NearestCorrelation.project(a, fixed, floor, 1e-13, 100_000, NearestCorrelation.MEMORY, null, false);
+            NearestCorrelation.Result plain = NearestCorrelation.project(a, fixed, floor, 1e-13, 100_000, 0, null, false);
             assertTrue(accelerated.converged() && plain.converged());
             assertTrue(accelerated.iterations() <= plain.iterations(), accelerated.iterations() + " vs " + plain.iterations());
             for (int i = 0; i < n; i++) {
