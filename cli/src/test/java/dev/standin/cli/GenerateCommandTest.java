@@ -58,6 +58,29 @@ class GenerateCommandTest {
     }
 
     @Test
+    void guardFormulasPrefixesFormulaLikeHeaderAndLabelsInTheDataFile() throws Exception {
+        // OWASP's CSV Injection page: cells starting with = + - @ are prefixed with ' (common practice)
+        String spec = "dataset: bakery-tills\nrows: 40\nseed: 3\ncolumns:\n"
+                + "  \"=till\": {dist: categorical, levels: [\"=SUM(A1)\", \"+rye\", \"@loaf\", plain]}\n"
+                + "output:\n  guard-formulas: GUARD\n  report: false\n";
+        CliRun.spec(dir, "on.yaml", spec.replace("GUARD", "true"));
+        CliRun.spec(dir, "off.yaml", spec.replace("GUARD", "false").replace("bakery-tills", "bakery-raw"));
+
+        assertEquals(0, CliRun.in(dir, "generate", "on.yaml", "off.yaml").exit());
+
+        List<String> on = Files.readAllLines(dir.resolve("bakery-tills.csv"), StandardCharsets.UTF_8);
+        List<String> off = Files.readAllLines(dir.resolve("bakery-raw.csv"), StandardCharsets.UTF_8);
+        assertEquals("'=till", on.get(0));
+        assertEquals("=till", off.get(0));
+        assertEquals(off.size(), on.size());
+        for (int r = 1; r < on.size(); r++) {
+            String raw = off.get(r);
+            assertEquals(raw.equals("plain") ? raw : "'" + raw, on.get(r), "row " + r);
+        }
+        assertTrue(off.contains("=SUM(A1)") && off.contains("+rye") && off.contains("@loaf"), off.toString());
+    }
+
+    @Test
     void writesIntoTheWorkingDirectoryByDefaultAndAcceptsOutEqualsForm() throws Exception {
         CliRun.spec(dir, "greenhouse.yaml", CliRun.greenhouse("greenhouse-readings"));
 
