@@ -28,24 +28,11 @@ final class Specs {
      * for any k), written out in full so no completion or repair runs: the factor's cost alone.
      */
     static String normals(int k, long rows) {
-        StringBuilder sb = new StringBuilder("dataset: sensor-hall\nrows: " + rows + "\nseed: 77\ncolumns:\n");
-        for (int i = 0; i < k; i++) {
-            sb.append("  s").append(i).append(": {dist: normal, mean: 20, sd: 2, decimals: 3}\n");
-        }
-        sb.append("correlation:\n  measure: latent\n  order: [");
-        for (int i = 0; i < k; i++) {
-            sb.append(i > 0 ? ", " : "").append('s').append(i);
-        }
-        sb.append("]\n  matrix:\n");
-        for (int i = 0; i < k; i++) {
-            sb.append("    - [");
-            for (int j = 0; j < k; j++) {
-                int d = Math.abs(i - j);
-                sb.append(j > 0 ? "," : "").append(d == 0 ? "1" : d > 30 ? "0" : Double.toString(Math.pow(0.5, d)));
-            }
-            sb.append("]\n");
-        }
-        return sb.toString();
+        return matrixSpec("dataset: sensor-hall\nrows: " + rows + "\nseed: 77\n", "{dist: normal, mean: 20, sd: 2, decimals: 3}",
+                k, "  measure: latent\n", (i, j) -> {
+                    int d = Math.abs(i - j);
+                    return d == 0 ? "1" : d > 30 ? "0" : Double.toString(Math.pow(0.5, d));
+                });
     }
 
     /**
@@ -54,24 +41,11 @@ final class Specs {
      * factor alone).
      */
     static String spearmanBand(int k) {
-        StringBuilder sb = new StringBuilder("dataset: sensor-hall\nrows: 1000\nseed: 78\ncolumns:\n");
-        for (int i = 0; i < k; i++) {
-            sb.append("  s").append(i).append(": {dist: uniform, min: 0, max: 1, decimals: 3}\n");
-        }
-        sb.append("correlation:\n  measure: spearman\n  order: [");
-        for (int i = 0; i < k; i++) {
-            sb.append(i > 0 ? ", " : "").append('s').append(i);
-        }
-        sb.append("]\n  matrix:\n");
-        for (int i = 0; i < k; i++) {
-            sb.append("    - [");
-            for (int j = 0; j < k; j++) {
-                int d = Math.abs(i - j);
-                sb.append(j > 0 ? "," : "").append(d == 0 ? "1" : d == 1 ? "0.3" : d == 2 ? "0.09" : "0");
-            }
-            sb.append("]\n");
-        }
-        return sb.toString();
+        return matrixSpec("dataset: sensor-hall\nrows: 1000\nseed: 78\n", "{dist: uniform, min: 0, max: 1, decimals: 3}",
+                k, "  measure: spearman\n", (i, j) -> {
+                    int d = Math.abs(i - j);
+                    return d == 0 ? "1" : d == 1 ? "0.3" : d == 2 ? "0.09" : "0";
+                });
     }
 
     /**
@@ -110,12 +84,18 @@ final class Specs {
 
     /** k latent normal columns with the given full matrix (no marginal maps): the check and repair of the matrix. */
     static String latentSpec(double[][] matrix) {
-        int k = matrix.length;
-        StringBuilder sb = new StringBuilder("dataset: sensor-hall\nrows: 1000\nseed: 79\ncolumns:\n");
+        return matrixSpec("dataset: sensor-hall\nrows: 1000\nseed: 79\n", "{dist: normal, mean: 0, sd: 1, decimals: 3}",
+                matrix.length, "  measure: latent\n  max-change: 1\n", (i, j) -> i.equals(j) ? "1" : Double.toString(matrix[i][j]));
+    }
+
+    /** A spec of k columns s0 .. s(k−1), all of the given definition, with the full matrix written out cell by cell. */
+    private static String matrixSpec(String head, String column, int k, String measure,
+                                      java.util.function.BiFunction<Integer, Integer, String> cell) {
+        StringBuilder sb = new StringBuilder(head).append("columns:\n");
         for (int i = 0; i < k; i++) {
-            sb.append("  s").append(i).append(": {dist: normal, mean: 0, sd: 1, decimals: 3}\n");
+            sb.append("  s").append(i).append(": ").append(column).append('\n');
         }
-        sb.append("correlation:\n  measure: latent\n  max-change: 1\n  order: [");
+        sb.append("correlation:\n").append(measure).append("  order: [");
         for (int i = 0; i < k; i++) {
             sb.append(i > 0 ? ", " : "").append('s').append(i);
         }
@@ -123,7 +103,7 @@ final class Specs {
         for (int i = 0; i < k; i++) {
             sb.append("    - [");
             for (int j = 0; j < k; j++) {
-                sb.append(j > 0 ? "," : "").append(matrix[i][j]);
+                sb.append(j > 0 ? "," : "").append(cell.apply(i, j));
             }
             sb.append("]\n");
         }

@@ -76,39 +76,8 @@ final class AndersonMixing {
             }
             largest = Math.max(largest, l[p][p]);
         }
-        for (int p = 0; p < m; p++) {
-            for (int q = 0; q <= p; q++) {
-                double s = l[p][q];
-                for (int r = 0; r < q; r++) {
-                    s -= l[p][r] * l[q][r];
-                }
-                if (p == q) {
-                    // a pivot below 1e-14 of the largest diagonal entry: condition number beyond ~1e14
-                    if (!(s > 1e-14 * largest)) {
-                        return null;
-                    }
-                    l[p][p] = StrictMath.sqrt(s);
-                } else {
-                    l[p][q] = s / l[q][q];
-                }
-            }
-        }
-        double[] gamma = new double[m];
-        for (int p = 0; p < m; p++) {
-            double s = rhs[p];
-            for (int r = 0; r < p; r++) {
-                s -= l[p][r] * gamma[r];
-            }
-            gamma[p] = s / l[p][p];
-        }
-        for (int p = m - 1; p >= 0; p--) {
-            double s = gamma[p];
-            for (int r = p + 1; r < m; r++) {
-                s -= l[r][p] * gamma[r];
-            }
-            gamma[p] = s / l[p][p];
-        }
-        return gamma;
+        // a pivot below 1e-14 of the largest diagonal entry: condition number beyond ~1e14
+        return Cholesky.solveInPlace(l, rhs, 1e-14 * largest) ? rhs : null;
     }
 
     private double dot(double[] a, double[] b) {

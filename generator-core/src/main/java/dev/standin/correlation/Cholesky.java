@@ -53,4 +53,45 @@ public final class Cholesky {
         }
         return l;
     }
+
+    /**
+     * Solves a x = b in place for a symmetric positive definite a given by its lower triangle: a's
+     * lower triangle is overwritten by the factor L (the same recurrence as {@link #factor}), then b by
+     * x through L and L<sup>T</sup>. Returns false, leaving a and b undefined, when a pivot is not above
+     * {@code minPivot} (0: not positive definite; larger: too ill-conditioned for the caller).
+     */
+    static boolean solveInPlace(double[][] a, double[] b, double minPivot) {
+        int m = b.length;
+        for (int p = 0; p < m; p++) {
+            for (int q = 0; q <= p; q++) {
+                double s = a[p][q];
+                for (int r = 0; r < q; r++) {
+                    s -= a[p][r] * a[q][r];
+                }
+                if (p == q) {
+                    if (!(s > minPivot)) {
+                        return false;
+                    }
+                    a[p][p] = StrictMath.sqrt(s);
+                } else {
+                    a[p][q] = s / a[q][q];
+                }
+            }
+        }
+        for (int p = 0; p < m; p++) {
+            double s = b[p];
+            for (int r = 0; r < p; r++) {
+                s -= a[p][r] * b[r];
+            }
+            b[p] = s / a[p][p];
+        }
+        for (int p = m - 1; p >= 0; p--) {
+            double s = b[p];
+            for (int r = p + 1; r < m; r++) {
+                s -= a[r][p] * b[r];
+            }
+            b[p] = s / a[p][p];
+        }
+        return true;
+    }
 }

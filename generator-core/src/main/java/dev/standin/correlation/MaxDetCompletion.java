@@ -69,7 +69,7 @@ public final class MaxDetCompletion {
                     }
                     beta[p] = x[nb[p]][j];
                 }
-                if (!solveInPlace(block, beta)) {
+                if (!Cholesky.solveInPlace(block, beta, 0.0)) {
                     return new Result(x, sweep, false);
                 }
                 java.util.Arrays.fill(column, 0.0);
@@ -112,42 +112,6 @@ public final class MaxDetCompletion {
             }
         }
         return worst;
-    }
-
-    /** Solves a b = rhs for symmetric positive definite a (lower triangle given) by Cholesky, in place; false if not positive definite. */
-    private static boolean solveInPlace(double[][] a, double[] b) {
-        int m = b.length;
-        for (int p = 0; p < m; p++) {
-            for (int q = 0; q <= p; q++) {
-                double s = a[p][q];
-                for (int r = 0; r < q; r++) {
-                    s -= a[p][r] * a[q][r];
-                }
-                if (p == q) {
-                    if (!(s > 0)) {
-                        return false;
-                    }
-                    a[p][p] = StrictMath.sqrt(s);
-                } else {
-                    a[p][q] = s / a[q][q];
-                }
-            }
-        }
-        for (int p = 0; p < m; p++) {
-            double s = b[p];
-            for (int r = 0; r < p; r++) {
-                s -= a[p][r] * b[r];
-            }
-            b[p] = s / a[p][p];
-        }
-        for (int p = m - 1; p >= 0; p--) {
-            double s = b[p];
-            for (int r = p + 1; r < m; r++) {
-                s -= a[r][p] * b[r];
-            }
-            b[p] = s / a[p][p];
-        }
-        return true;
     }
 
     /** The inverse of a symmetric positive definite matrix through its Cholesky factor, or null. */

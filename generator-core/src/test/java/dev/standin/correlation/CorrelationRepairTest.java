@@ -27,7 +27,7 @@ class CorrelationRepairTest {
         assertEquals(0.7606898, x[0][1], 1e-6);
         assertEquals(0.7606898, x[1][2], 1e-6);
         assertEquals(0.1572981, x[0][2], 1e-6);
-        assertTrue(minEigenvalue(x) > -1e-10);
+        assertTrue(TestMatrices.minEigenvalue(x) > -1e-10);
     }
 
     @Test
@@ -124,15 +124,7 @@ class CorrelationRepairTest {
         SplittableRandom random = new SplittableRandom(20261201L);
         for (int trial = 0; trial < 24; trial++) {
             int n = 3 + random.nextInt(58);
-            double[][] a = new double[n][n];
-            for (int i = 0; i < n; i++) {
-                a[i][i] = 1;
-                for (int j = 0; j < i; j++) {
-                    double v = random.nextDouble(-1, 1);
-                    a[i][j] = v;
-                    a[j][i] = v;
-                }
-            }
+            double[][] a = TestMatrices.randomUnitDiagonal(n, random);
             CorrelationRepair.Outcome nearest = CorrelationRepair.repair(a, RepairPolicy.NEAREST);
             double[][] x = nearest.matrix();
             for (int i = 0; i < n; i++) {
@@ -142,7 +134,7 @@ class CorrelationRepairTest {
                 }
             }
             // eigenvalues by EJML, an independent library
-            assertTrue(minEigenvalue(x) > -1e-9, "PSD for n=" + n);
+            assertTrue(TestMatrices.minEigenvalue(x) > -1e-9, "PSD for n=" + n);
             // idempotent: repairing a valid matrix changes nothing
             CorrelationRepair.Outcome again = CorrelationRepair.repair(x, RepairPolicy.NEAREST);
             assertEquals("none", again.method());
@@ -152,7 +144,7 @@ class CorrelationRepairTest {
             // nearest is never farther than clipping (Higham 2002: the nearest point minimises the Frobenius distance)
             double[][] clipped = CorrelationRepair.repair(a, RepairPolicy.CLIP).matrix();
             assertTrue(Matrices.distance(x, a) <= Matrices.distance(clipped, a) + 1e-9, "nearest ≤ clip for n=" + n);
-            assertTrue(minEigenvalue(clipped) > 0, "clip gives a positive definite matrix");
+            assertTrue(TestMatrices.minEigenvalue(clipped) > 0, "clip gives a positive definite matrix");
         }
     }
 
@@ -160,14 +152,7 @@ class CorrelationRepairTest {
     void eigenProjectionAgreesWithEjml() {
         SplittableRandom random = new SplittableRandom(7);
         for (int n : new int[] {3, 10, 40}) {
-            double[][] a = new double[n][n];
-            for (int i = 0; i < n; i++) {
-                for (int j = 0; j <= i; j++) {
-                    double v = random.nextDouble(-1, 1);
-                    a[i][j] = v;
-                    a[j][i] = v;
-                }
-            }
+            double[][] a = TestMatrices.randomSymmetric(n, random);
             double[][] ours = Matrices.eigenFloor(a, 0.0);
             // EJML symmetric eigendecomposition, then V max(Λ, 0) V^T
             EigenDecomposition_F64<DMatrixRMaj> eig = DecompositionFactory_DDRM.eig(n, true, true);
@@ -200,16 +185,5 @@ class CorrelationRepairTest {
         // an indefinite matrix is refused
         assertThrows(Cholesky.NotPositiveDefiniteException.class,
                 () -> PivotedCholesky.factor(new double[][] {{1, 1, 0}, {1, 1, 1}, {0, 1, 1}}, 1e-10));
-    }
-
-    private static double minEigenvalue(double[][] a) {
-        int n = a.length;
-        EigenDecomposition_F64<DMatrixRMaj> eig = DecompositionFactory_DDRM.eig(n, false, true);
-        assertTrue(eig.decompose(new DMatrixRMaj(a)));
-        double min = Double.POSITIVE_INFINITY;
-        for (int p = 0; p < n; p++) {
-            min = Math.min(min, eig.getEigenvalue(p).getReal());
-        }
-        return min;
     }
 }

@@ -4,9 +4,6 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.SplittableRandom;
-import org.ejml.data.DMatrixRMaj;
-import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
-import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
 import org.junit.jupiter.api.Test;
 
 class NearestCorrelationTest {
@@ -23,7 +20,7 @@ class NearestCorrelationTest {
         SplittableRandom random = new SplittableRandom(20261202L);
         for (int trial = 0; trial < 10; trial++) {
             int n = trial < 9 ? 4 + random.nextInt(77) : 200;
-            double[][] a = trial < 9 ? randomUnitDiagonal(n, random) : perturbedFactorModel(n, random);
+            double[][] a = trial < 9 ? TestMatrices.randomUnitDiagonal(n, random) : perturbedFactorModel(n, random);
             NearestCorrelation.Result r = NearestCorrelation.nearest(a);
             assertTrue(r.converged());
             double[][] x = r.matrix();
@@ -55,8 +52,8 @@ class NearestCorrelationTest {
             }
             // the iteration stops at relative changes of 1e-12; products of O(1) entries summed over n terms
             assertTrue(worst < 1e-8, "S X = 0 for n=" + n + ": " + worst);
-            assertTrue(minEigenvalue(s) > -1e-8, "S positive semidefinite for n=" + n + ": " + minEigenvalue(s));
-            assertTrue(minEigenvalue(x) > -1e-9, "X positive semidefinite for n=" + n);
+            assertTrue(TestMatrices.minEigenvalue(s) > -1e-8, "S positive semidefinite for n=" + n + ": " + TestMatrices.minEigenvalue(s));
+            assertTrue(TestMatrices.minEigenvalue(x) > -1e-9, "X positive semidefinite for n=" + n);
         }
     }
 
@@ -66,7 +63,7 @@ class NearestCorrelationTest {
         SplittableRandom random = new SplittableRandom(99);
         for (int trial = 0; trial < 8; trial++) {
             int n = 5 + random.nextInt(40);
-            double[][] a = randomUnitDiagonal(n, random);
+            double[][] a = TestMatrices.randomUnitDiagonal(n, random);
             boolean[][] fixed = null;
             if (trial % 2 == 1) {
                 // hold a few pairs at a small value, a feasible set (the identity-like pairs keep it non-empty)
@@ -97,19 +94,6 @@ class NearestCorrelationTest {
         }
     }
 
-    private static double[][] randomUnitDiagonal(int n, SplittableRandom random) {
-        double[][] a = new double[n][n];
-        for (int i = 0; i < n; i++) {
-            a[i][i] = 1;
-            for (int j = 0; j < i; j++) {
-                double v = random.nextDouble(-1, 1);
-                a[i][j] = v;
-                a[j][i] = v;
-            }
-        }
-        return a;
-    }
-
     /** A 5-factor correlation matrix with uniform ±0.1 noise on the pairs, rounded to 2 decimals (how people write them). */
     static double[][] perturbedFactorModel(int n, SplittableRandom random) {
         double[][] loadings = new double[n][5];
@@ -138,15 +122,5 @@ class NearestCorrelationTest {
             }
         }
         return a;
-    }
-
-    private static double minEigenvalue(double[][] m) {
-        EigenDecomposition_F64<DMatrixRMaj> e = DecompositionFactory_DDRM.eig(m.length, false, true);
-        assertTrue(e.decompose(new DMatrixRMaj(m)));
-        double min = Double.POSITIVE_INFINITY;
-        for (int p = 0; p < m.length; p++) {
-            min = Math.min(min, e.getEigenvalue(p).getReal());
-        }
-        return min;
     }
 }

@@ -19,14 +19,7 @@ class SymmetricEigenTest {
     void agreesWithCommonsMathAndEjml() {
         SplittableRandom random = new SplittableRandom(99);
         for (int n : new int[] {1, 2, 3, 7, 30, 120, 201}) {
-            double[][] a = new double[n][n];
-            for (int i = 0; i < n; i++) {
-                for (int j = 0; j <= i; j++) {
-                    double v = random.nextDouble(-1, 1);
-                    a[i][j] = v;
-                    a[j][i] = v;
-                }
-            }
+            double[][] a = TestMatrices.randomSymmetric(n, random);
             SymmetricEigen ours = SymmetricEigen.of(a);
             // commons-math3 EigenDecomposition: eigenvalues (sorted here)
             double[] cm = new EigenDecomposition(new Array2DRowRealMatrix(a)).getRealEigenvalues();
@@ -85,14 +78,7 @@ class SymmetricEigenTest {
         // the parallel path (n >= PARALLEL_MIN) must not change a single bit, nor may the values-only path
         SplittableRandom random = new SplittableRandom(7);
         for (int n : new int[] {SymmetricEigen.PARALLEL_MIN, 257}) {
-            double[][] a = new double[n][n];
-            for (int i = 0; i < n; i++) {
-                for (int j = 0; j <= i; j++) {
-                    double v = random.nextDouble(-1, 1);
-                    a[i][j] = v;
-                    a[j][i] = v;
-                }
-            }
+            double[][] a = TestMatrices.randomSymmetric(n, random);
             SymmetricEigen split = SymmetricEigen.of(a, true);
             SymmetricEigen single = SymmetricEigen.of(a, false);
             assertArrayEquals(single.values, split.values, 0.0);
