@@ -1,12 +1,13 @@
 package dev.standin.correlation;
 
-/** Small dense symmetric-matrix helpers on {@code double[][]}. */
-final class Matrices {
+/** Small dense symmetric-matrix helpers on {@code double[][]}; only {@link #copy} is public. */
+public final class Matrices {
 
     private Matrices() {
     }
 
-    static double[][] copy(double[][] a) {
+    /** A deep copy: a new array of rows, each row a clone of a's (rows may differ in length). */
+    public static double[][] copy(double[][] a) {
         double[][] c = new double[a.length][];
         for (int i = 0; i < a.length; i++) {
             c[i] = a[i].clone();

@@ -144,14 +144,7 @@ public final class FidelityChecks {
     }
 
     private static double[] column(List<double[]> sample, int i) {
-        double[] v = new double[sample.size()];
-        int n = 0;
-        for (double[] row : sample) {
-            if (!Double.isNaN(row[i])) {
-                v[n++] = row[i];
-            }
-        }
-        return Arrays.copyOf(v, n);
+        return RowSample.pairwiseComplete(sample, i, i).x();
     }
 
     /** KS distance of the sample from the distribution of the rounded (or discrete) value. */
@@ -276,16 +269,10 @@ public final class FidelityChecks {
 
     /** n·Var(r) from standardised sample moments (Stuart and Ord 1994, example 10.6). */
     static double pearsonAsymptoticVariance(List<double[]> sample, int ca, int cb, double rho) {
-        double[] x = new double[sample.size()];
-        double[] y = new double[sample.size()];
-        int n = 0;
-        for (double[] row : sample) {
-            if (!Double.isNaN(row[ca]) && !Double.isNaN(row[cb])) {
-                x[n] = row[ca];
-                y[n] = row[cb];
-                n++;
-            }
-        }
+        RowSample.Pair p = RowSample.pairwiseComplete(sample, ca, cb);
+        double[] x = p.x();
+        double[] y = p.y();
+        int n = x.length;
         if (n < 3) {
             return (1 - rho * rho) * (1 - rho * rho);
         }

@@ -31,28 +31,13 @@ public final class RankStatistics {
                 return Double.isFinite(v) ? v : Double.NaN;
             }
         }
-        int n = 0;
-        for (double[] r : rows) {
-            if (!Double.isNaN(r[a]) && !Double.isNaN(r[b])) {
-                n++;
-            }
-        }
-        if (n < 3) {
+        RowSample.Pair p = RowSample.pairwiseComplete(rows, a, b);
+        if (p.x().length < 3) {
             return Double.NaN;
         }
-        double[] x = new double[n];
-        double[] y = new double[n];
-        int i = 0;
-        for (double[] r : rows) {
-            if (!Double.isNaN(r[a]) && !Double.isNaN(r[b])) {
-                x[i] = r[a];
-                y[i] = r[b];
-                i++;
-            }
-        }
         double v = measure == CorrelationSpec.Measure.KENDALL
-                ? new KendallsCorrelation().correlation(x, y)
-                : new PearsonsCorrelation().correlation(averageRanks(x), averageRanks(y));
+                ? new KendallsCorrelation().correlation(p.x(), p.y())
+                : new PearsonsCorrelation().correlation(averageRanks(p.x()), averageRanks(p.y()));
         return Double.isFinite(v) ? v : Double.NaN;
     }
 

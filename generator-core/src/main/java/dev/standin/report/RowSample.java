@@ -108,6 +108,34 @@ public final class RowSample {
         }
     }
 
+    /** The values of two columns in the rows where both are present, in row order: x[i] and y[i] share a row. */
+    record Pair(double[] x, double[] y) {
+    }
+
+    /**
+     * Columns a and b of the rows where neither is missing (NaN), in the rows' order; a == b gives the
+     * column's present values.
+     */
+    static Pair pairwiseComplete(List<double[]> rows, int a, int b) {
+        int n = 0;
+        for (double[] r : rows) {
+            if (!Double.isNaN(r[a]) && !Double.isNaN(r[b])) {
+                n++;
+            }
+        }
+        double[] x = new double[n];
+        double[] y = new double[n];
+        int i = 0;
+        for (double[] r : rows) {
+            if (!Double.isNaN(r[a]) && !Double.isNaN(r[b])) {
+                x[i] = r[a];
+                y[i] = r[b];
+                i++;
+            }
+        }
+        return new Pair(x, y);
+    }
+
     /** The kept rows' values, smallest priority first: any prefix is itself a seeded random sample. */
     public List<double[]> rowsByPriority() {
         List<Entry> all = new ArrayList<>(heap);

@@ -3,6 +3,7 @@ package dev.standin.sampling;
 import dev.standin.correlation.Cholesky;
 import dev.standin.correlation.CorrelationRepair;
 import dev.standin.correlation.Definiteness;
+import dev.standin.correlation.Matrices;
 import dev.standin.correlation.NortaPearson;
 import dev.standin.correlation.PivotedCholesky;
 import dev.standin.correlation.RankTargets;
@@ -271,12 +272,12 @@ public final class LatentModel {
 
     /** The target actually used, in {@link #order()}: completed and repaired, in the spec's measure. */
     public double[][] used() {
-        return copy(used);
+        return Matrices.copy(used);
     }
 
     /** The latent normal correlation matrix given to the factorisation, in {@link #order()}. */
     public double[][] latent() {
-        return copy(latent);
+        return Matrices.copy(latent);
     }
 
     /** The correlated columns in factorisation order (sorted by name). */
@@ -289,7 +290,7 @@ public final class LatentModel {
      * with L L<sup>T</sup> the permuted latent matrix. Rows may be shorter than the column count.
      */
     public double[][] factor() {
-        return copy(factor);
+        return Matrices.copy(factor);
     }
 
     /**
@@ -313,13 +314,5 @@ public final class LatentModel {
     /** Warnings to show the user (each {@code FILE:LINE:COLUMN: warning: ...}). */
     public List<String> warnings() {
         return warnings;
-    }
-
-    private static double[][] copy(double[][] m) {
-        double[][] c = new double[m.length][];
-        for (int i = 0; i < m.length; i++) {
-            c[i] = m[i].clone();
-        }
-        return c;
     }
 }

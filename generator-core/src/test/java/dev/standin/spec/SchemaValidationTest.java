@@ -2,25 +2,18 @@ package dev.standin.spec;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
-import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.node.ArrayNode;
-import com.fasterxml.jackson.databind.node.JsonNodeFactory;
-import com.fasterxml.jackson.databind.node.ObjectNode;
 import com.networknt.schema.Error;
 import com.networknt.schema.Schema;
 import com.networknt.schema.SchemaLocation;
 import com.networknt.schema.SchemaRegistry;
 import com.networknt.schema.SpecificationVersion;
 import java.io.IOException;
-import java.io.InputStream;
-import java.io.StringReader;
 import java.lang.reflect.Field;
 import java.lang.reflect.Method;
-import java.math.BigDecimal;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -36,16 +29,6 @@ import java.util.stream.Collectors;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
-import org.yaml.snakeyaml.DumperOptions;
-import org.yaml.snakeyaml.LoaderOptions;
-import org.yaml.snakeyaml.Yaml;
-import org.yaml.snakeyaml.constructor.SafeConstructor;
-import org.yaml.snakeyaml.nodes.MappingNode;
-import org.yaml.snakeyaml.nodes.Node;
-import org.yaml.snakeyaml.nodes.NodeTuple;
-import org.yaml.snakeyaml.nodes.ScalarNode;
-import org.yaml.snakeyaml.nodes.SequenceNode;
-import org.yaml.snakeyaml.nodes.Tag;
 
 /**
  * The editor schema {@code dev/standin/spec.schema.json} (shipped in the core jar) checked with an
@@ -55,80 +38,23 @@ import org.yaml.snakeyaml.nodes.Tag;
  * when the test runs, the integration-test and benchmark specs, the README's example) passes it;
  * known-bad specs fail it and the parser alike; and its keys and families are exactly the parser's.
  *
- * <p>YAML is turned into a JSON tree through snakeyaml's node tree with the types the parser gives
- * each scalar: a plain scalar that reads as a number is a number, {@code true}/{@code false} are
- * booleans, YAML nulls are null, everything else (quoted text, dates) is a string.
+ * <p>Schema and YAML-to-JSON conversion come from {@link SpecSchema}: a JSON tree with the types the
+ * parser gives each scalar (a plain scalar that reads as a number is a number, {@code true}/{@code false}
+ * are booleans, YAML nulls are null, everything else, quoted text and dates, is a string).
  */
 class SchemaValidationTest {
 
-    /** Where the schema lives in the core jar (and so on the test class path). */
-    static final String SCHEMA_RESOURCE = "/dev/standin/spec.schema.json";
-
+    private static SpecSchema schema;
     private static JsonNode schemaNode;
-    private static Schema schema;
     private static Path repo;
 
     @BeforeAll
     static void load() throws IOException {
-        try (InputStream in = SchemaValidationTest.class.getResourceAsStream(SCHEMA_RESOURCE)) {
-            assertNotNull(in, SCHEMA_RESOURCE + " is not on the class path");
-            schemaNode = new ObjectMapper().readTree(in);
-        }
-        SchemaRegistry registry = SchemaRegistry.withDefaultDialect(SpecificationVersion.DRAFT_2020_12);
-        schema = registry.getSchema(SchemaLocation.of("urn:standin:spec:1"), schemaNode);
+        schema = SpecSchema.load();
+        schemaNode = schema.node();
         // The test runs in generator-core/; the repository is its parent.
         repo = Path.of("").toAbsolutePath().getParent();
         assertTrue(Files.isDirectory(repo.resolve("example-specs/specs")), "no example-specs/specs under " + repo);
-    }
-
-    // --- YAML to JSON, with the parser's scalar types ---------------------------------------------
-
-    static JsonNode toJson(String yaml) {
-        Node root = new Yaml(new SafeConstructor(new LoaderOptions())).compose(new StringReader(yaml));
-        return root == null ? JsonNodeFactory.instance.nullNode() : toJson(root);
-    }
-
-    private static JsonNode toJson(Node n) {
-        JsonNodeFactory f = JsonNodeFactory.instance;
-        if (n instanceof MappingNode m) {
-            ObjectNode o = f.objectNode();
-            for (NodeTuple t : m.getValue()) {
-                o.set(((ScalarNode) t.getKeyNode()).getValue(), toJson(t.getValueNode()));
-            }
-            return o;
-        }
-        if (n instanceof SequenceNode s) {
-            ArrayNode a = f.arrayNode();
-            s.getValue().forEach(item -> a.add(toJson(item)));
-            return a;
-        }
-        ScalarNode s = (ScalarNode) n;
-        String text = s.getValue();
-        if (s.getTag().equals(Tag.NULL)) {
-            return f.nullNode();
-        }
-        if (s.getTag().equals(Tag.BOOL) && (text.equalsIgnoreCase("true") || text.equalsIgnoreCase("false"))) {
-            return f.booleanNode(text.equalsIgnoreCase("true"));
-        }
-        if (s.getScalarStyle() == DumperOptions.ScalarStyle.PLAIN) {
-            // As YamlMap.number: a plain scalar that BigDecimal reads (a leading '+' allowed) and that is finite.
-            String t = text.trim();
-            try {
-                BigDecimal d = new BigDecimal(t.startsWith("+") ? t.substring(1) : t);
-                if (Double.isFinite(d.doubleValue())) {
-                    return d.scale() <= 0 && !t.contains(".") && !t.toLowerCase(Locale.ROOT).contains("e")
-                            ? f.numberNode(d.toBigIntegerExact()) : f.numberNode(d);
-                }
-            } catch (NumberFormatException | ArithmeticException e) {
-                // not a number: a string
-            }
-        }
-        return f.textNode(text);
-    }
-
-    private static List<String> schemaErrors(String yaml) {
-        return schema.validate(toJson(yaml)).stream().map(e -> e.getInstanceLocation() + ": " + e.getMessage())
-                .collect(Collectors.toList());
     }
 
     private static List<String> parserErrors(String name, String yaml) {
@@ -156,7 +82,7 @@ class SchemaValidationTest {
     void theRepositoryCopyIsTheShippedOne() throws IOException {
         // The README points editors at generator-core/src/main/resources/dev/standin/spec.schema.json.
         JsonNode inRepo = new ObjectMapper().readTree(repo.resolve("generator-core/src/main/resources"
-                + SCHEMA_RESOURCE).toFile());
+                + SpecSchema.RESOURCE).toFile());
         assertEquals(inRepo, schemaNode);
     }
 
@@ -192,7 +118,7 @@ class SchemaValidationTest {
             String yaml = Files.readString(p, StandardCharsets.UTF_8);
             String name = repo.relativize(p).toString();
             assertEquals(List.of(), parserErrors(name, yaml), name + " (parser)");
-            assertEquals(List.of(), schemaErrors(yaml), name + " (schema)");
+            assertEquals(List.of(), schema.errors(yaml), name + " (schema)");
         }
     }
 
@@ -204,7 +130,7 @@ class SchemaValidationTest {
             String name = repo.relativize(p).toString();
             if (parserErrors(name, yaml).isEmpty()) {
                 accepted++;
-                assertEquals(List.of(), schemaErrors(yaml), name);
+                assertEquals(List.of(), schema.errors(yaml), name);
             }
         }
         assertTrue(accepted >= 10, "only " + accepted + " specs found");
@@ -216,7 +142,7 @@ class SchemaValidationTest {
         Matcher m = Pattern.compile("## A spec\\s+```yaml\\n(.*?)```", Pattern.DOTALL).matcher(readme);
         assertTrue(m.find(), "README.md has no yaml block under '## A spec'");
         assertEquals(List.of(), parserErrors("README.md", m.group(1)));
-        assertEquals(List.of(), schemaErrors(m.group(1)));
+        assertEquals(List.of(), schema.errors(m.group(1)));
     }
 
     // --- every parameterisation and key, by hand -------------------------------------------------
@@ -257,7 +183,7 @@ class SchemaValidationTest {
         for (String c : columns) {
             String yaml = spec(c, "");
             assertEquals(List.of(), parserErrors("probe.yaml", yaml), c + " (parser)");
-            assertEquals(List.of(), schemaErrors(yaml), c + " (schema)");
+            assertEquals(List.of(), schema.errors(yaml), c + " (schema)");
         }
         List<String> blocks = List.of(
                 "correlation:\n  measure: spearman\n  pairs:\n    x ~ y: 0.3\n  repair: clip\n  max-change: 0.1\n",
@@ -269,7 +195,7 @@ class SchemaValidationTest {
         for (String b : blocks) {
             String yaml = spec("{dist: normal, mean: 10, sd: 2}", b);
             assertEquals(List.of(), parserErrors("probe.yaml", yaml), b + " (parser)");
-            assertEquals(List.of(), schemaErrors(yaml), b + " (schema)");
+            assertEquals(List.of(), schema.errors(yaml), b + " (schema)");
         }
     }
 
@@ -314,7 +240,7 @@ class SchemaValidationTest {
         bad.put("column name with ~", spec(good, "").replace("  y: ", "  y~z: "));
         for (Map.Entry<String, String> e : bad.entrySet()) {
             assertFalse(parserErrors("probe.yaml", e.getValue()).isEmpty(), e.getKey() + ": the parser accepts it");
-            assertFalse(schemaErrors(e.getValue()).isEmpty(), e.getKey() + ": the schema accepts it");
+            assertFalse(schema.errors(e.getValue()).isEmpty(), e.getKey() + ": the schema accepts it");
         }
     }
 
@@ -382,7 +308,7 @@ class SchemaValidationTest {
     @Test
     void theConverterGivesTheParsersTypes() {
         // The YAML-to-JSON step must not hide type errors: quoted numbers stay strings, yes/no stay text.
-        JsonNode n = toJson("a: 1\nb: \"1\"\nc: 1.5e3\nd: yes\ne: true\nf: ~\ng: 2026-04-01\nh: +7\n");
+        JsonNode n = SpecSchema.toJson("a: 1\nb: \"1\"\nc: 1.5e3\nd: yes\ne: true\nf: ~\ng: 2026-04-01\nh: +7\n");
         assertTrue(n.get("a").isIntegralNumber());
         assertTrue(n.get("b").isTextual());
         assertTrue(n.get("c").isNumber());
