@@ -36,22 +36,40 @@ public final class Cholesky {
         int k = a.length;
         double[][] l = new double[k][k];
         for (int i = 0; i < k; i++) {
+            System.arraycopy(a[i], 0, l[i], 0, i + 1);
+        }
+        int failed = factorInPlace(l, 0.0);
+        if (failed >= 0) {
+            throw new NotPositiveDefiniteException(failed, l[failed][failed]);
+        }
+        return l;
+    }
+
+    /**
+     * Overwrites the lower triangle of a with its factor L (row by row), reading only the lower
+     * triangle; returns −1, or the row whose pivot was not above {@code minPivot} (its diagonal entry
+     * then holds that pivot and the rest of a is undefined).
+     */
+    private static int factorInPlace(double[][] a, double minPivot) {
+        int k = a.length;
+        for (int i = 0; i < k; i++) {
             for (int j = 0; j <= i; j++) {
                 double sum = a[i][j];
                 for (int p = 0; p < j; p++) {
-                    sum -= l[i][p] * l[j][p];
+                    sum -= a[i][p] * a[j][p];
                 }
                 if (i == j) {
-                    if (!(sum > 0)) {
-                        throw new NotPositiveDefiniteException(i, sum);
+                    if (!(sum > minPivot)) {
+                        a[i][i] = sum;
+                        return i;
                     }
-                    l[i][i] = StrictMath.sqrt(sum);
+                    a[i][i] = StrictMath.sqrt(sum);
                 } else {
-                    l[i][j] = sum / l[j][j];
+                    a[i][j] = sum / a[j][j];
                 }
             }
         }
-        return l;
+        return -1;
     }
 
     /**
@@ -61,37 +79,29 @@ public final class Cholesky {
      * {@code minPivot} (0: not positive definite; larger: too ill-conditioned for the caller).
      */
     static boolean solveInPlace(double[][] a, double[] b, double minPivot) {
-        int m = b.length;
-        for (int p = 0; p < m; p++) {
-            for (int q = 0; q <= p; q++) {
-                double s = a[p][q];
-                for (int r = 0; r < q; r++) {
-                    s -= a[p][r] * a[q][r];
-                }
-                if (p == q) {
-                    if (!(s > minPivot)) {
-                        return false;
-                    }
-                    a[p][p] = StrictMath.sqrt(s);
-                } else {
-                    a[p][q] = s / a[q][q];
-                }
-            }
+        if (factorInPlace(a, minPivot) >= 0) {
+            return false;
         }
+        solveWithFactor(a, b);
+        return true;
+    }
+
+    /** b ← (L L<sup>T</sup>)<sup>-1</sup> b by forward then back substitution with the factor L (lower triangle of l). */
+    static void solveWithFactor(double[][] l, double[] b) {
+        int m = b.length;
         for (int p = 0; p < m; p++) {
             double s = b[p];
             for (int r = 0; r < p; r++) {
-                s -= a[p][r] * b[r];
+                s -= l[p][r] * b[r];
             }
-            b[p] = s / a[p][p];
+            b[p] = s / l[p][p];
         }
         for (int p = m - 1; p >= 0; p--) {
             double s = b[p];
             for (int r = p + 1; r < m; r++) {
-                s -= a[r][p] * b[r];
+                s -= l[r][p] * b[r];
             }
-            b[p] = s / a[p][p];
+            b[p] = s / l[p][p];
         }
-        return true;
     }
 }

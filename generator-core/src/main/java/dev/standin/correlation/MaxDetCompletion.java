@@ -126,19 +126,11 @@ public final class MaxDetCompletion {
         double[][] inv = new double[n][n];
         double[] col = new double[n];
         for (int c = 0; c < n; c++) {
+            java.util.Arrays.fill(col, 0.0);
+            col[c] = 1.0;
+            Cholesky.solveWithFactor(l, col);
             for (int r = 0; r < n; r++) {
-                double sum = r == c ? 1.0 : 0.0;
-                for (int p = 0; p < r; p++) {
-                    sum -= l[r][p] * col[p];
-                }
-                col[r] = sum / l[r][r];
-            }
-            for (int r = n - 1; r >= 0; r--) {
-                double sum = col[r];
-                for (int p = r + 1; p < n; p++) {
-                    sum -= l[p][r] * inv[p][c];
-                }
-                inv[r][c] = sum / l[r][r];
+                inv[r][c] = col[r];
             }
         }
         Matrices.symmetrize(inv);
