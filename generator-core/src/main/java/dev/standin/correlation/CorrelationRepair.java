@@ -13,8 +13,9 @@ import java.util.List;
  *   pairs are chosen by the maximum-determinant rule ({@link MaxDetCompletion}), starting from a
  *   positive definite point found by alternating projections with the specified pairs held fixed
  *   ({@link NearestCorrelation#project}). When the specified pairs only admit singular completions,
- *   the projection's semidefinite limit is used. When they admit none, the projection's distance
- *   between the two sets levels off and the run stops there.</li>
+ *   the projection's semidefinite limit is used. Columns tied by pairs of exactly ±1 are completed as
+ *   one column ({@link TiedColumns}), so the result keeps those pairs exactly. When the pairs admit no
+ *   valid matrix, the projection's distance between the two sets levels off and the run stops there.</li>
  *   <li>A matrix that is still not positive semidefinite (a full matrix, or specified pairs that are
  *   inconsistent) is repaired by the policy: {@code nearest} — Higham's nearest correlation matrix;
  *   with free pairs, the alternation of Higham's projection with resetting the specified pairs,
@@ -92,6 +93,17 @@ public final class CorrelationRepair {
         }
         int iterations = 0;
         if (anyFree) {
+            // columns tied by ±1 pairs: complete one representative per tie and expand, exactly
+            TiedColumns tied = TiedColumns.of(requested);
+            double[][] reduced = tied == null ? null : tied.reduce(requested);
+            if (reduced != null) {
+                try {
+                    Outcome inner = repair(reduced, RepairPolicy.FAIL);
+                    return outcome(requested, tied.expand(inner.matrix()), "completion", inner.iterations(), free);
+                } catch (NotPositiveSemidefiniteException e) {
+                    // the pairs between ties are inconsistent: repaired below like any other target
+                }
+            }
             double[][] pd = start;
             if (MaxDetCompletion.inverse(start) == null) {
                 // a positive definite completion, if there is one; the run stops early when the pairs given admit none
@@ -100,9 +112,10 @@ public final class CorrelationRepair {
                 iterations += r.iterations();
                 pd = r.converged() && MaxDetCompletion.inverse(r.matrix()) != null ? r.matrix() : null;
                 if (pd == null && r.gap() < SINGULAR_GAP) {
-                    // so close that only singular completions may exist (|ρ| = 1 among the pairs given)
+                    // so close that only singular completions may exist (|ρ| = 1 among the pairs given); the
+                    // distance to such a set shrinks slowly, so this run is not cut short when it levels off
                     NearestCorrelation.Result r0 = NearestCorrelation.project(start, not(free), 0.0,
-                            NearestCorrelation.DEFAULT_TOLERANCE, PROJECTION_LIMIT, NearestCorrelation.MEMORY, null, true);
+                            NearestCorrelation.DEFAULT_TOLERANCE, PROJECTION_LIMIT, NearestCorrelation.MEMORY, null, false);
                     iterations += r0.iterations();
                     if (r0.converged() && isPsd(r0.matrix())) {
                         return outcome(requested, r0.matrix(), "completion", iterations, free);

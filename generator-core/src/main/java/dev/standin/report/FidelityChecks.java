@@ -344,8 +344,9 @@ public final class FidelityChecks {
         }
         double se = measure == CorrelationSpec.Measure.KENDALL ? StrictMath.sqrt(0.437 / (n - 4)) : StrictMath.sqrt(1.06 / (n - 3));
         double zt = atanh(Math.max(-0.999999, Math.min(0.999999, target)));
-        double lo = StrictMath.tanh(zt - Z * se);
-        double hi = StrictMath.tanh(zt + Z * se);
+        // a target of exactly ±1 (tied columns) is reached exactly: the interval then ends at ±1 itself
+        double lo = target <= -1 ? -1.0 : StrictMath.tanh(zt - Z * se);
+        double hi = target >= 1 ? 1.0 : StrictMath.tanh(zt + Z * se);
         double tol = Math.max(hi - target, target - lo);
         boolean pass = achieved >= lo && achieved <= hi;
         checks.add(new Check(name, target, achieved, tol, pass, "Fisher-z interval on a seeded sample of " + n));

@@ -110,6 +110,25 @@ class CorrelationRepairTest {
     }
 
     @Test
+    void pairsOfPlusOrMinusOneAmongFreePairsAreKeptExactly() throws Exception {
+        // a ~ b = 1 makes b = a, c ~ d = −1 makes d = −c; with b ~ c = 0.5 every other pair follows
+        // by substitution: a ~ c = 0.5, a ~ d = b ~ d = −0.5 (closed form, no choice left)
+        double n = Double.NaN;
+        double[][] a = {{1, 1, n, n}, {1, 1, 0.5, n}, {n, 0.5, 1, -1}, {n, n, -1, 1}};
+        CorrelationRepair.Outcome o = CorrelationRepair.repair(a, RepairPolicy.FAIL);
+        assertEquals("completion", o.method());
+        double[][] expected = {{1, 1, 0.5, -0.5}, {1, 1, 0.5, -0.5}, {0.5, 0.5, 1, -1}, {-0.5, -0.5, -1, 1}};
+        for (int i = 0; i < 4; i++) {
+            assertArrayEquals(expected[i], o.matrix()[i], 1e-15, "row " + i);
+        }
+        assertTrue(CorrelationRepair.isPsd(o.matrix()));
+        // contradicting ties (a ~ b = 1, b ~ c = 1, a ~ c = −1) are not tied away but repaired like any target
+        double[][] bad = {{1, 1, -1, n}, {1, 1, 1, n}, {-1, 1, 1, 0.2}, {n, n, 0.2, 1}};
+        assertThrows(CorrelationRepair.NotPositiveSemidefiniteException.class, () -> CorrelationRepair.repair(bad, RepairPolicy.FAIL));
+        assertEquals("nearest", CorrelationRepair.repair(bad, RepairPolicy.NEAREST).method());
+    }
+
+    @Test
     void failPolicyExplainsWithTheSmallestEigenvalue() {
         double[][] a = {{1, 1, 0}, {1, 1, 1}, {0, 1, 1}};
         CorrelationRepair.NotPositiveSemidefiniteException e = assertThrows(
