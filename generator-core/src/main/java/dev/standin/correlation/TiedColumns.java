@@ -139,8 +139,4 @@ final class TiedColumns {
         }
         return x;
     }
-
-    int ties() {
-        return ties;
-    }
 }
