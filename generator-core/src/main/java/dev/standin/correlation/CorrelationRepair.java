@@ -146,22 +146,10 @@ public final class CorrelationRepair {
             iterations += r.iterations();
             result = r.matrix();
         } else {
-            int[] row = new int[0];
-            int[] col = new int[0];
-            int count = 0;
-            for (int i = 0; i < n; i++) {
-                for (int j = 0; j < i; j++) {
-                    if (free[i][j]) {
-                        if (count == row.length) {
-                            row = java.util.Arrays.copyOf(row, Math.max(16, 2 * count));
-                            col = java.util.Arrays.copyOf(col, row.length);
-                        }
-                        row[count] = i;
-                        col[count] = j;
-                        count++;
-                    }
-                }
-            }
+            int[][] positions = Matrices.lowerPositions(free);
+            int[] row = positions[0];
+            int[] col = positions[1];
+            int count = row.length;
             double[] weight = new double[count];
             java.util.Arrays.fill(weight, 2.0);
             double[] yFree = new double[count];

@@ -15,6 +15,32 @@ public final class Matrices {
         return c;
     }
 
+    /** The positions (i, j), i &gt; j, where mask is true, in row order: {rows, columns}. */
+    static int[][] lowerPositions(boolean[][] mask) {
+        int n = mask.length;
+        int count = 0;
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < i; j++) {
+                if (mask[i][j]) {
+                    count++;
+                }
+            }
+        }
+        int[] rows = new int[count];
+        int[] cols = new int[count];
+        int t = 0;
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < i; j++) {
+                if (mask[i][j]) {
+                    rows[t] = i;
+                    cols[t] = j;
+                    t++;
+                }
+            }
+        }
+        return new int[][] {rows, cols};
+    }
+
     /** Frobenius norm of a − b. */
     static double distance(double[][] a, double[][] b) {
         double s = 0;
@@ -87,8 +113,7 @@ public final class Matrices {
         }
         // row by row, so that out[i] stays in cache while the k vectors stream past; rows 0 .. n/√2 and
         // the rest carry about equal halves of the triangle and may run side by side (disjoint rows)
-        int[] cut = n >= SymmetricEigen.PARALLEL_MIN && Runtime.getRuntime().availableProcessors() > 1
-                ? new int[] {0, (int) (n / StrictMath.sqrt(2.0)), n} : new int[] {0, n};
+        int[] cut = SymmetricEigen.splitsInTwo(n) ? new int[] {0, (int) (n / StrictMath.sqrt(2.0)), n} : new int[] {0, n};
         SymmetricEigen.inParts(cut.length - 1, part -> {
             for (int i = cut[part]; i < cut[part + 1]; i++) {
                 double[] row = out[i];

@@ -1,8 +1,5 @@
 package dev.standin.correlation;
 
-import java.util.ArrayList;
-import java.util.List;
-
 /**
  * The nearest correlation matrix in the Frobenius norm by Higham's alternating projections with
  * Dykstra's correction: N. J. Higham, "Computing the nearest correlation matrix — a problem from
@@ -109,14 +106,12 @@ public final class NearestCorrelation {
             double[] f = new double[u.size()];
             double fNorm2 = 0;
             double onSupportX2 = 0;
-            double onSupportY2 = 0;
             double onSupportDx2 = 0;
             for (int t = 0; t < f.length; t++) {
                 double xv = xNew[u.row[t]][u.col[t]];
                 f[t] = u.target[t] - xv;
                 fNorm2 += u.weight[t] * f[t] * f[t];
                 onSupportX2 += u.weight[t] * xv * xv;
-                onSupportY2 += u.weight[t] * u.target[t] * u.target[t];
                 if (x != null) {
                     double d = xv - x[u.row[t]][u.col[t]];
                     onSupportDx2 += u.weight[t] * d * d;
@@ -135,7 +130,7 @@ public final class NearestCorrelation {
             }
             // Y = X off the support and the targets on it, which do not change from step to step
             double normX = Math.max(StrictMath.sqrt(xx), Double.MIN_NORMAL);
-            double normY = Math.max(StrictMath.sqrt(Math.max(0.0, xx - onSupportX2 + onSupportY2)), Double.MIN_NORMAL);
+            double normY = Math.max(StrictMath.sqrt(Math.max(0.0, xx - onSupportX2 + u.targetNorm2)), Double.MIN_NORMAL);
             double dx = x == null ? Double.POSITIVE_INFINITY : StrictMath.sqrt(dxx) / normX;
             double dy = x == null ? Double.POSITIVE_INFINITY : StrictMath.sqrt(Math.max(0.0, dxx - onSupportDx2)) / normY;
             double dxy = StrictMath.sqrt(fNorm2) / normY;
@@ -185,27 +180,25 @@ public final class NearestCorrelation {
         final double[] target;
         /** 1 for a diagonal entry, 2 for a pair (it appears twice in the matrix). */
         final double[] weight;
+        /** The squared Frobenius norm of the targets on the support (Y there, at every step). */
+        final double targetNorm2;
 
         private Support(int[] row, int[] col, double[] target, double[] weight) {
             this.row = row;
             this.col = col;
             this.target = target;
             this.weight = weight;
+            double s = 0;
+            for (int t = 0; t < target.length; t++) {
+                s += weight[t] * target[t] * target[t];
+            }
+            this.targetNorm2 = s;
         }
 
         static Support of(double[][] a, boolean[][] fixed) {
             int n = a.length;
-            List<int[]> pairs = new ArrayList<>();
-            if (fixed != null) {
-                for (int i = 0; i < n; i++) {
-                    for (int j = 0; j < i; j++) {
-                        if (fixed[i][j]) {
-                            pairs.add(new int[] {i, j});
-                        }
-                    }
-                }
-            }
-            int size = n + pairs.size();
+            int[][] pairs = fixed == null ? new int[][] {new int[0], new int[0]} : Matrices.lowerPositions(fixed);
+            int size = n + pairs[0].length;
             int[] row = new int[size];
             int[] col = new int[size];
             double[] target = new double[size];
@@ -216,9 +209,9 @@ public final class NearestCorrelation {
                 target[i] = 1.0;
                 weight[i] = 1.0;
             }
-            for (int t = 0; t < pairs.size(); t++) {
-                int i = pairs.get(t)[0];
-                int j = pairs.get(t)[1];
+            for (int t = 0; t < pairs[0].length; t++) {
+                int i = pairs[0][t];
+                int j = pairs[1][t];
                 row[n + t] = i;
                 col[n + t] = j;
                 target[n + t] = 0.5 * (a[i][j] + a[j][i]);

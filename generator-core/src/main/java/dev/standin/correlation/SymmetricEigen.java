@@ -51,8 +51,7 @@ final class SymmetricEigen {
         double[][] work = symmetricCopy(a);
         double[] tau = new double[n];
         tridiagonalize(work, d, e, tau);
-        int[] cut = parallel && n >= PARALLEL_MIN && Runtime.getRuntime().availableProcessors() > 1
-                ? new int[] {0, n / 2, n} : new int[] {0, n};
+        int[] cut = parallel && splitsInTwo(n) ? new int[] {0, n / 2, n} : new int[] {0, n};
         int parts = cut.length - 1;
         // Q in column blocks; then W = Q^T in column blocks (rows k of Q), on which QL rotates pairs of rows
         double[][][] q = new double[parts][][];
@@ -93,6 +92,11 @@ final class SymmetricEigen {
 
     /** Matrices with at least this many rows are decomposed in two halves side by side. */
     static final int PARALLEL_MIN = 160;
+
+    /** Whether work on an n × n matrix is split in two halves side by side (large enough, and a second processor). */
+    static boolean splitsInTwo(int n) {
+        return n >= PARALLEL_MIN && Runtime.getRuntime().availableProcessors() > 1;
+    }
 
     /** Runs part 0 .. parts−1 (at most 2), the second on the common fork-join pool; the caller runs it when the pool is busy. */
     static void inParts(int parts, java.util.function.IntConsumer part) {
