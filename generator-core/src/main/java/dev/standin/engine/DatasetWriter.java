@@ -17,17 +17,28 @@ import dev.standin.sampling.RowSampler;
 import dev.standin.spec.OutputSpec;
 import dev.standin.spec.Spec;
 import java.io.IOException;
+import java.io.InterruptedIOException;
 import java.io.OutputStream;
 import java.io.Writer;
+import java.nio.channels.FileChannel;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.security.DigestOutputStream;
+import java.nio.file.StandardOpenOption;
+import java.security.MessageDigest;
 import java.time.Instant;
 import java.time.LocalDate;
-import java.security.MessageDigest;
+import java.util.ArrayDeque;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.concurrent.ArrayBlockingQueue;
+import java.util.concurrent.BlockingQueue;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.Future;
+import java.util.concurrent.atomic.AtomicInteger;
+import java.util.function.LongConsumer;
 
 /**
  * Streams a compiled spec's rows into its data file while measuring what was written, then writes
@@ -35,10 +46,12 @@ import java.util.List;
  *
  * <p>Rows are made in blocks of {@link #blockRows(int)} consecutive rows, a size that depends on the
  * column count only: a block is drawn ({@link RowSampler#drawBlock}), encoded to bytes
- * ({@link RowEncoder}) and summarised ({@link DatasetStats.Block}) on one thread, and blocks are written
+ * ({@link RowEncoder}) and summarised ({@link DatasetStats.Block}) on one thread, and blocks are digested
  * and merged into the statistics strictly in row order on the calling thread. With more than one
  * thread, workers make blocks ahead (at most {@code 2·threads + 2} blocks in flight, so memory stays
- * bounded). Every value, every byte and every statistic is therefore the same for any thread count.
+ * bounded) and each block is written to its place in the file by a worker ({@link Placement}), mostly
+ * the one that made it, so the bytes are copied to the kernel from the cache they were made in. Every
+ * value, every byte and every statistic is therefore the same for any thread count.
  */
 final class DatasetWriter {
 
@@ -63,7 +76,7 @@ final class DatasetWriter {
         return Runtime.getRuntime().availableProcessors();
     }
 
-    static GenerationResult write(CompiledSpec compiled, Path outputRoot, java.util.function.LongConsumer progress)
+    static GenerationResult write(CompiledSpec compiled, Path outputRoot, LongConsumer progress)
             throws IOException {
         Spec spec = compiled.spec();
         int k = spec.columns().size();
@@ -75,16 +88,16 @@ final class DatasetWriter {
         long bytes;
         try (AtomicFile data = AtomicFile.create(dataPath); AtomicFile report = AtomicFile.create(reportPath);
              AtomicFile page = html ? AtomicFile.create(outputRoot.resolve(compiled.htmlReportFile())) : null) {
-            CountingStream counter;
-            try (OutputStream file = Files.newOutputStream(data.temp());
-                 OutputStream out = counter = new CountingStream(new DigestOutputStream(file, digest))) {
+            try (FileChannel file = FileChannel.open(data.temp(), StandardOpenOption.WRITE,
+                    StandardOpenOption.TRUNCATE_EXISTING)) {
                 Blocks blocks = new Blocks(compiled);
-                out.write(blocks.encoder.prologue());
+                DataFile out = new DataFile(file, digest);
+                out.append(blocks.encoder.prologue());
                 int threads = compiled.threads() > 0 ? compiled.threads() : defaultThreads();
                 blocks.run(threads, stats, out, progress);
-                out.write(blocks.encoder.epilogue());
+                out.append(blocks.encoder.epilogue());
+                bytes = out.length();
             }
-            bytes = counter.count();
             GenerationResult.WrittenFile dataFile = new GenerationResult.WrittenFile(compiled.dataFile(), bytes,
                     Hashes.hex(digest.digest()));
             List<Check> checks = FidelityChecks.of(spec, compiled.model(), stats);
@@ -142,10 +155,15 @@ final class DatasetWriter {
         return new RowEncoder(compiled.spec()).epilogue();
     }
 
-    /** One block's buffers; they travel with the block from the worker that makes it to the writer. */
+    /** One block's buffers; they travel with the block from the worker that makes it to its writer and the in-order consumer. */
     private static final class Block {
+        long index;
         long first;
         int n;
+        /** Where the block's text goes in the data file, once every earlier block's length is known. */
+        long offset;
+        /** Set to 2 when handed out: the writer and the in-order consumer each release the block once. */
+        final AtomicInteger holders = new AtomicInteger();
         final double[][] values;
         final boolean[][] missing;
         final ByteText text;
@@ -197,8 +215,7 @@ final class DatasetWriter {
             }
         }
 
-        void run(int threads, DatasetStats stats, OutputStream out, java.util.function.LongConsumer progress)
-                throws IOException {
+        void run(int threads, DatasetStats stats, DataFile out, LongConsumer progress) throws IOException {
             this.stats = stats;
             long blockCount = (rows + blockRows - 1) / blockRows;
             if (threads <= 1 || blockCount <= 1) {
@@ -206,57 +223,62 @@ final class DatasetWriter {
                 for (long i = 0; i < blockCount; i++) {
                     long first = i * blockRows;
                     make(b, first, (int) Math.min(blockRows, rows - first), true);
+                    out.writeAtEnd(b.text);
                     consume(b, stats, out, progress);
                 }
                 return;
             }
             int workers = (int) Math.min(threads, blockCount);
             int inFlight = 2 * workers + 2;
-            java.util.concurrent.ArrayBlockingQueue<Block> free = new java.util.concurrent.ArrayBlockingQueue<>(inFlight);
+            BlockingQueue<Block> free = new ArrayBlockingQueue<>(inFlight);
             for (int i = 0; i < inFlight; i++) {
                 free.add(newBlock());
             }
-            java.util.concurrent.ExecutorService pool = java.util.concurrent.Executors.newFixedThreadPool(workers, r -> {
+            Placement placement = new Placement(out, inFlight, free);
+            ExecutorService pool = Executors.newFixedThreadPool(workers, r -> {
                 Thread t = new Thread(r, "standin-rows");
                 t.setDaemon(true);
                 return t;
             });
-            java.util.ArrayDeque<java.util.concurrent.Future<Block>> pending = new java.util.ArrayDeque<>();
+            ArrayDeque<Future<Block>> pending = new ArrayDeque<>();
             try {
                 long next = 0;
                 while (next < blockCount && pending.size() < inFlight) {
-                    pending.add(submit(pool, free, next++));
+                    pending.add(submit(pool, free, placement, next++));
                 }
                 while (!pending.isEmpty()) {
                     Block b = await(pending.poll());
                     consume(b, stats, out, progress);
-                    free.add(b);
+                    placement.release(b);
                     if (next < blockCount) {
-                        pending.add(submit(pool, free, next++));
+                        pending.add(submit(pool, free, placement, next++));
                     }
                 }
+                out.skipTo(placement.end());
             } finally {
                 pool.shutdownNow();
             }
         }
 
-        private java.util.concurrent.Future<Block> submit(java.util.concurrent.ExecutorService pool,
-                                                          java.util.concurrent.BlockingQueue<Block> free, long index) {
+        private Future<Block> submit(ExecutorService pool, BlockingQueue<Block> free, Placement placement, long index) {
             return pool.submit(() -> {
                 Block b = free.take();
+                b.index = index;
+                b.holders.set(2);
                 long first = index * blockRows;
                 make(b, first, (int) Math.min(blockRows, rows - first), true);
+                placement.made(b);
                 return b;
             });
         }
 
-        private static Block await(java.util.concurrent.Future<Block> f) throws IOException {
+        private static Block await(Future<Block> f) throws IOException {
             try {
                 return f.get();
             } catch (InterruptedException e) {
                 Thread.currentThread().interrupt();
-                throw new java.io.InterruptedIOException("interrupted while generating rows");
-            } catch (java.util.concurrent.ExecutionException e) {
+                throw new InterruptedIOException("interrupted while generating rows");
+            } catch (ExecutionException e) {
                 Throwable cause = e.getCause();
                 if (cause instanceof RuntimeException re) {
                     throw re;
@@ -264,13 +286,15 @@ final class DatasetWriter {
                 if (cause instanceof Error err) {
                     throw err;
                 }
+                if (cause instanceof IOException io) {
+                    throw io;
+                }
                 throw new IOException(cause);
             }
         }
 
-        private static void consume(Block b, DatasetStats stats, OutputStream out, java.util.function.LongConsumer progress)
-                throws IOException {
-            b.text.writeTo(out);
+        private static void consume(Block b, DatasetStats stats, DataFile out, LongConsumer progress) {
+            out.digest(b.text);
             stats.acceptBlock(b.first, b.n, b.values, b.missing, b.summary);
             if (progress != null) {
                 long done = b.first + b.n;
@@ -319,28 +343,116 @@ final class DatasetWriter {
         };
     }
 
-    /** Counts the bytes passing through. */
-    private static final class CountingStream extends java.io.FilterOutputStream {
-        private long count;
+    /**
+     * The data file being written: its digest, fed in file order on the calling thread, and the end
+     * of what has been placed so far.
+     */
+    private static final class DataFile {
+        private final FileChannel channel;
+        private final MessageDigest digest;
+        private long length;
 
-        CountingStream(OutputStream out) {
-            super(out);
+        DataFile(FileChannel channel, MessageDigest digest) {
+            this.channel = channel;
+            this.digest = digest;
         }
 
-        @Override
-        public void write(int b) throws IOException {
-            out.write(b);
-            count++;
+        /** Writes bytes at the end without digesting them ({@link #digest} does, in file order). */
+        void writeAtEnd(ByteText text) throws IOException {
+            text.writeTo(channel, length);
+            length += text.length();
         }
 
-        @Override
-        public void write(byte[] b, int off, int len) throws IOException {
-            out.write(b, off, len);
-            count += len;
+        /** Writes and digests bytes at the end. */
+        void append(byte[] bytes) throws IOException {
+            ByteText text = new ByteText(bytes.length);
+            text.append(bytes);
+            writeAtEnd(text);
+            digest(text);
         }
 
-        long count() {
-            return count;
+        /** Feeds the digest a text that a worker writes (or wrote) at its place. */
+        void digest(ByteText text) {
+            text.updateDigest(digest);
+        }
+
+        /** Moves the end past the texts the workers placed. */
+        void skipTo(long end) {
+            length = end;
+        }
+
+        long length() {
+            return length;
+        }
+    }
+
+    /**
+     * Gives each block made by a worker its offset in the data file, which is known once every earlier
+     * block's length is: the worker whose block is the first unplaced one places it and every later
+     * block already made, and writes them (positional writes, so workers write at once). A block goes
+     * back to the free blocks when both its writer and the in-order consumer have released it.
+     */
+    private static final class Placement {
+        private final DataFile file;
+        private final Block[] waiting;
+        private final BlockingQueue<Block> free;
+        private long nextIndex;
+        private long nextOffset;
+
+        Placement(DataFile file, int inFlight, BlockingQueue<Block> free) {
+            this.file = file;
+            this.waiting = new Block[inFlight];
+            this.free = free;
+            this.nextOffset = file.length();
+        }
+
+        /**
+         * Called by the worker that made a block. Blocks with index in [nextIndex, nextIndex + inFlight)
+         * only are ever waiting (a block's task is submitted after the block inFlight before it was
+         * consumed), so a ring of inFlight slots holds them.
+         */
+        void made(Block b) throws IOException {
+            Block[] ready;
+            synchronized (this) {
+                waiting[(int) (b.index % waiting.length)] = b;
+                if (b.index != nextIndex) {
+                    return;
+                }
+                int count = 0;
+                for (long i = nextIndex; i < nextIndex + waiting.length; i++) {
+                    Block w = waiting[(int) (i % waiting.length)];
+                    if (w == null || w.index != i) {
+                        break;
+                    }
+                    count++;
+                }
+                ready = new Block[count];
+                for (int j = 0; j < count; j++) {
+                    int slot = (int) (nextIndex % waiting.length);
+                    Block w = waiting[slot];
+                    waiting[slot] = null;
+                    w.offset = nextOffset;
+                    nextOffset += w.text.length();
+                    nextIndex++;
+                    ready[j] = w;
+                }
+            }
+            for (Block w : ready) {
+                w.text.writeTo(file.channel, w.offset);
+                release(w);
+            }
+        }
+
+        /** Releases a block; the second release returns it to the free blocks. */
+        void release(Block b) {
+            if (b.holders.decrementAndGet() == 0) {
+                free.add(b);
+            }
+        }
+
+        /** The end of the placed blocks. */
+        synchronized long end() {
+            return nextOffset;
         }
     }
 }

@@ -2,7 +2,10 @@ package dev.standin.output;
 
 import java.io.IOException;
 import java.io.OutputStream;
+import java.nio.ByteBuffer;
+import java.nio.channels.FileChannel;
 import java.nio.charset.StandardCharsets;
+import java.security.MessageDigest;
 import java.util.Arrays;
 
 /**
@@ -129,6 +132,22 @@ public final class ByteText {
     /** Writes the bytes held to a stream. */
     public void writeTo(OutputStream out) throws IOException {
         out.write(buf, 0, len);
+    }
+
+    /**
+     * Writes the bytes held to a file channel at a position (a positional write: the channel's own
+     * position is not used, so threads may write their texts to the same file at once).
+     */
+    public void writeTo(FileChannel channel, long position) throws IOException {
+        ByteBuffer b = ByteBuffer.wrap(buf, 0, len);
+        while (b.hasRemaining()) {
+            position += channel.write(b, position);
+        }
+    }
+
+    /** Feeds the bytes held to a message digest. */
+    public void updateDigest(MessageDigest digest) {
+        digest.update(buf, 0, len);
     }
 
     /** A copy of the bytes held. */

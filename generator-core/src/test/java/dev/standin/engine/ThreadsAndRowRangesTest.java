@@ -100,6 +100,37 @@ class ThreadsAndRowRangesTest {
         }
     }
 
+    /**
+     * Many more blocks than are in flight (16 blocks of 4096 rows, at most 2·threads + 2 in flight), so
+     * blocks are recycled and placed out of order; the last block is partial.
+     */
+    @Test
+    void manyBlocksInFlightWriteTheSameBytes() throws Exception {
+        String yaml = """
+                dataset: greenhouse-readings
+                rows: 63001
+                seed: 20261202
+                columns:
+                  air_c:    {dist: normal, mean: 22, sd: 3, decimals: 2}
+                  lux:      {dist: gamma, mean: 900, sd: 250, decimals: 1, nulls: 0.02}
+                  misting:  {dist: bernoulli, p: 0.2}
+                correlation:
+                  measure: spearman
+                  pairs:
+                    air_c ~ lux: 0.6
+                    lux ~ misting: -0.3
+                """;
+        CompiledSpec c = compile(yaml);
+        assertEquals(4096, DatasetWriter.blockRows(3));
+        List<byte[]> one = generate(c, 1, "many-t1");
+        for (int threads : new int[] {2, 3, 5}) {
+            List<byte[]> many = generate(c, threads, "many-t" + threads);
+            for (int f = 0; f < one.size(); f++) {
+                assertArrayEquals(one.get(f), many.get(f), c.outputFiles().get(f) + " with " + threads + " threads");
+            }
+        }
+    }
+
     @Test
     void rowRangesOfAnyPartitionConcatenateToTheDataFile() throws Exception {
         SplittableRandom rnd = new SplittableRandom(42);
