@@ -40,9 +40,15 @@ echo "machine: $(nproc) cores, $(java -version 2>&1 | head -1), $("$PY" -c 'impo
 # the latent matrix the numpy script samples, from Standin's report of the same job
 java -jar "$JAR" generate "$SPEC" --rows "$ROWS" --out "$OUT/latent" --threads 1 >/dev/null
 
+# Each run starts from the same page-cache state: the previous run's output of the same name is
+# removed and the dirty pages of earlier runs are flushed (sync) before the clock starts. Without
+# this, a run pays for writing back whatever the runs before it left behind, and the figures wander
+# by a second or more on this machine's disk.
 measure() {
   local name=$1
   shift
+  rm -rf "$OUT/$name" "$OUT/$name.csv"
+  sync
   if ! /usr/bin/time -f "%e %M" -o "$OUT/time" "$@" >"$OUT/stdout" 2>"$OUT/stderr"; then
     echo "compare.sh: $name failed:" >&2
     cat "$OUT/stderr" >&2
@@ -56,13 +62,13 @@ measure() {
 for i in $(seq "$RUNS"); do
   echo "run $i of $RUNS (load average $(cut -d' ' -f1-3 /proc/loadavg))" >&2
   measure numpy "$PY" bench/numpy_reference.py --rows "$ROWS" --latent "$OUT/latent/mixed-1m.report.json" --out "$OUT/numpy.csv"
-  measure standin-1 java -jar "$JAR" generate "$SPEC" --rows "$ROWS" --out "$OUT/s1" --threads 1
-  measure standin-2 java -jar "$JAR" generate "$SPEC" --rows "$ROWS" --out "$OUT/s2" --threads 2
+  measure standin-1 java -jar "$JAR" generate "$SPEC" --rows "$ROWS" --out "$OUT/standin-1" --threads 1
+  measure standin-2 java -jar "$JAR" generate "$SPEC" --rows "$ROWS" --out "$OUT/standin-2" --threads 2
   measure floor java -cp "$BENCH_JAR" dev.standin.engine.FormatFloor "$SPEC" "$OUT/floor.csv" "$ROWS"
 done
 
 for f in mixed-1m.csv mixed-1m.report.json mixed-1m.report.html; do
-  cmp -s "$OUT/s1/$f" "$OUT/s2/$f" || { echo "compare.sh: $f differs between --threads 1 and 2" >&2; exit 1; }
+  cmp -s "$OUT/standin-1/$f" "$OUT/standin-2/$f" || { echo "compare.sh: $f differs between --threads 1 and 2" >&2; exit 1; }
 done
 
 median() { # name column
@@ -86,7 +92,7 @@ echo "data, JSON and HTML reports identical for --threads 1 and 2"
 if [ -n "${BIG_ROWS:-}" ]; then
   echo
   echo "one run of $BIG_ROWS rows with -Xmx128m (--threads 2):" >&2
-  rm -rf "$OUT/s1" "$OUT/s2" "$OUT/numpy.csv" "$OUT/floor.csv"
+  rm -rf "$OUT/standin-1" "$OUT/standin-2" "$OUT/numpy.csv" "$OUT/floor.csv"
   measure big java -Xmx128m -jar "$JAR" generate "$SPEC" --rows "$BIG_ROWS" --out "$OUT/big" --threads 2
   printf '%s rows: %.2f s, peak RSS %.0f MB\n' "$BIG_ROWS" "$(median big 2)" "$(awk -v k="$(median big 3)" 'BEGIN { print k / 1024 }')"
 fi

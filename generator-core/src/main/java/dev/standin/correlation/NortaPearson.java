@@ -23,7 +23,7 @@ import org.apache.commons.math3.exception.TooManyEvaluationsException;
  * {@value #MAX_STEPS} support points):
  * <ul>
  *   <li>linear–linear: c(r) = r; linear–other: c(r) = r E[Z g(Z)]/sd(g(Z)) (Stein's lemma);</li>
- *   <li>smooth–smooth: Gauss–Hermite quadrature over the bivariate normal (nodes from commons-math3),
+ *   <li>smooth–smooth: Gauss–Hermite quadrature over the bivariate normal (commons-math3's nodes, held in {@link HermiteRule64}),
  *   Z<sub>2</sub> = rZ<sub>1</sub> + √(1 − r²)Z<sub>3</sub>;</li>
  *   <li>smooth–step: E[f(Z<sub>1</sub>)g(Z<sub>2</sub>)] = Σ<sub>j</sub> y<sub>j</sub> E[f(Z<sub>1</sub>)
  *   (Φ((s<sub>j+1</sub> − rZ<sub>1</sub>)/√(1 − r²)) − Φ((s<sub>j</sub> − rZ<sub>1</sub>)/√(1 − r²)))] with the
@@ -39,7 +39,7 @@ import org.apache.commons.math3.exception.TooManyEvaluationsException;
 public final class NortaPearson {
 
     /** Gauss–Hermite points per dimension. */
-    static final int POINTS = 64;
+    static final int POINTS = HermiteRule64.POINTS;
 
     /** Gauss–Legendre panels on [−16, 16] for the one-dimensional integrals at r = ±1. */
     static final int PANELS = 64;
@@ -54,15 +54,16 @@ public final class NortaPearson {
     private static final double[] LEGENDRE_W;
 
     static {
-        GaussIntegrator rule = new GaussIntegratorFactory().hermite(POINTS);
-        int n = rule.getNumberOfPoints();
+        double[] points = HermiteRule64.points();
+        double[] weights = HermiteRule64.weights();
+        int n = points.length;
         Z = new double[n];
         W = new double[n];
         double sqrt2 = StrictMath.sqrt(2.0);
         double sqrtPi = StrictMath.sqrt(Math.PI);
         for (int i = 0; i < n; i++) {
-            Z[i] = sqrt2 * rule.getPoint(i);
-            W[i] = rule.getWeight(i) / sqrtPi;
+            Z[i] = sqrt2 * points[i];
+            W[i] = weights[i] / sqrtPi;
         }
         GaussIntegrator legendre = new GaussIntegratorFactory().legendre(16, 0, 1);
         LEGENDRE_X = new double[legendre.getNumberOfPoints()];
