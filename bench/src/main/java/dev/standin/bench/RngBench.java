@@ -38,6 +38,17 @@ public class RngBench {
         return u;
     }
 
+    final RandomStreams.Lanes lanes = new RandomStreams.Lanes();
+
+    /** The block form the row sampler calls: the Philox rounds of many rows lane by lane. */
+    @Benchmark
+    @OperationsPerInvocation(N)
+    public double[] uniforms() {
+        long from = row += N;
+        RandomStreams.uniforms(1000001L, 0x5DEECE66DL, from, u, N, lanes);
+        return u;
+    }
+
     @Benchmark
     @OperationsPerInvocation(N)
     public double[] uniformAndNormalOneByOne() {

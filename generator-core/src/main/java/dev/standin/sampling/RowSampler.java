@@ -123,6 +123,7 @@ public final class RowSampler {
     /** Per-thread working arrays. */
     public final class Scratch {
         final double[] z = new double[latentColumn.length];
+        final RandomStreams.Lanes lanes = new RandomStreams.Lanes();
         double[][] zBlock = new double[latentColumn.length][0];
         double[] wBlock = new double[0];
         double[] uBlock = new double[0];
@@ -203,7 +204,7 @@ public final class RowSampler {
         double[] u = scratch.uBlock;
         int k = z.length;
         for (int p = 0; p < k; p++) {
-            RandomStreams.uniforms(seed, valueStream[latentColumn[p]], from, u, n);
+            RandomStreams.uniforms(seed, valueStream[latentColumn[p]], from, u, n, scratch.lanes);
             NormalQuantile.of(u, z[p], n);
         }
         for (int i = 0; i < columnCount; i++) {
@@ -218,7 +219,7 @@ public final class RowSampler {
             }
             double share = nulls[i];
             if (share > 0) {
-                RandomStreams.uniforms(seed, missingStream[i], from, u, n);
+                RandomStreams.uniforms(seed, missingStream[i], from, u, n, scratch.lanes);
                 for (int r = 0; r < n; r++) {
                     miss[r] = u[r] < share;
                 }
@@ -228,7 +229,7 @@ public final class RowSampler {
             LatentQuantile map = maps[i];
             int p = latentIndex[i];
             if (p < 0) {
-                RandomStreams.uniforms(seed, valueStream[i], from, u, n);
+                RandomStreams.uniforms(seed, valueStream[i], from, u, n, scratch.lanes);
                 for (int r = 0; r < n; r++) {
                     v[r] = map.quantile(u[r]);
                 }
