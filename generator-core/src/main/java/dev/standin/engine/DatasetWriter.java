@@ -36,6 +36,7 @@ import java.util.concurrent.BlockingQueue;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ForkJoinTask;
 import java.util.concurrent.Future;
 import java.util.concurrent.atomic.AtomicInteger;
 import java.util.function.LongConsumer;
@@ -86,6 +87,9 @@ final class DatasetWriter {
         boolean html = compiled.htmlReport();
         MessageDigest digest = Hashes.sha256();
         long bytes;
+        int threads = compiled.threads() > 0 ? compiled.threads() : defaultThreads();
+        // with more than one thread, the reports' independent parts are made side by side too
+        boolean parallel = threads > 1;
         try (AtomicFile data = AtomicFile.create(dataPath); AtomicFile report = AtomicFile.create(reportPath);
              AtomicFile page = html ? AtomicFile.create(outputRoot.resolve(compiled.htmlReportFile())) : null) {
             try (FileChannel file = FileChannel.open(data.temp(), StandardOpenOption.WRITE,
@@ -93,21 +97,26 @@ final class DatasetWriter {
                 Blocks blocks = new Blocks(compiled);
                 DataFile out = new DataFile(file, digest);
                 out.append(blocks.encoder.prologue());
-                int threads = compiled.threads() > 0 ? compiled.threads() : defaultThreads();
                 blocks.run(threads, stats, out, progress);
                 out.append(blocks.encoder.epilogue());
                 bytes = out.length();
             }
             GenerationResult.WrittenFile dataFile = new GenerationResult.WrittenFile(compiled.dataFile(), bytes,
                     Hashes.hex(digest.digest()));
-            List<Check> checks = FidelityChecks.of(spec, compiled.model(), stats);
-            byte[] json = Report.build(compiled, dataFile, stats, checks).getBytes(StandardCharsets.UTF_8);
+            List<Check> checks = FidelityChecks.of(spec, compiled.model(), stats, parallel);
+            // the achieved matrix once, on this thread (it asks the shared sample for ranks)
+            double[][] achieved = spec.correlation() == null ? null : Report.achieved(compiled, stats);
+            ForkJoinTask<byte[]> htmlTask = page == null ? null : ForkJoinTask.adapt(() -> HtmlReport.build(compiled,
+                    stats, checks, achieved).getBytes(StandardCharsets.UTF_8));
+            if (htmlTask != null && parallel) {
+                htmlTask.fork();
+            }
+            byte[] json = Report.build(compiled, dataFile, stats, checks, achieved).getBytes(StandardCharsets.UTF_8);
             Files.write(report.temp(), json);
             List<GenerationResult.WrittenFile> files = new ArrayList<>(List.of(dataFile));
             files.add(written(compiled.reportFile(), json));
             if (page != null) {
-                byte[] htmlBytes = HtmlReport.build(compiled, stats, checks, Report.achieved(compiled, stats))
-                        .getBytes(StandardCharsets.UTF_8);
+                byte[] htmlBytes = parallel ? htmlTask.join() : htmlTask.invoke();
                 Files.write(page.temp(), htmlBytes);
                 files.add(written(compiled.htmlReportFile(), htmlBytes));
             }

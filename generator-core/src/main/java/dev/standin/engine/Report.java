@@ -50,7 +50,9 @@ final class Report {
         return achieved;
     }
 
-    static String build(CompiledSpec compiled, GenerationResult.WrittenFile data, DatasetStats stats, List<Check> checks) {
+    /** The JSON report; {@code achieved} is {@link #achieved} (null without a correlation block). */
+    static String build(CompiledSpec compiled, GenerationResult.WrittenFile data, DatasetStats stats, List<Check> checks,
+                        double[][] achieved) {
         Spec spec = compiled.spec();
         Map<String, Object> root = new LinkedHashMap<>();
         Map<String, Object> tool = new LinkedHashMap<>();
@@ -88,7 +90,7 @@ final class Report {
             corr.put("requested", cs.requested());
             corr.put("used", model.used());
             corr.put("latent", model.latent());
-            corr.put("achieved", achieved(compiled, stats));
+            corr.put("achieved", achieved);
             boolean ranks = cs.measure() == CorrelationSpec.Measure.SPEARMAN || cs.measure() == CorrelationSpec.Measure.KENDALL;
             corr.put("achievedFrom", ranks ? "seeded sample of " + stats.sample().size() + " rows" : "all rows");
             corr.put("repair", repair(model.targetRepair(), model.order(), cs.repair().word()));

@@ -20,6 +20,8 @@ public final class RowSample {
     private final long seed;
     private final int capacity;
     private final PriorityQueue<Entry> heap;
+    /** The list {@link #rows()} gave, until the next row is kept. */
+    private Rows rows;
 
     private record Entry(long priority, long row, double[] values) {
     }
@@ -57,21 +59,27 @@ public final class RowSample {
             heap.poll();
         }
         heap.add(new Entry(priority, row, values.clone()));
+        rows = null;
     }
 
     /**
      * The kept rows' values, in row order. The list remembers each complete column's average ranks
      * once asked for them ({@link RankStatistics}), so the rank correlations of many pairs rank each
-     * column once.
+     * column once; the same list is returned until another row is kept, so the fidelity checks and
+     * both reports share those ranks. Reading the rows is safe from any thread; asking for ranks is
+     * for one thread at a time.
      */
     public List<double[]> rows() {
-        List<Entry> all = new ArrayList<>(heap);
-        all.sort((a, b) -> Long.compare(a.row, b.row));
-        List<double[]> out = new ArrayList<>(all.size());
-        for (Entry e : all) {
-            out.add(e.values);
+        if (rows == null) {
+            List<Entry> all = new ArrayList<>(heap);
+            all.sort((a, b) -> Long.compare(a.row, b.row));
+            List<double[]> out = new ArrayList<>(all.size());
+            for (Entry e : all) {
+                out.add(e.values);
+            }
+            rows = new Rows(out);
         }
-        return new Rows(out);
+        return rows;
     }
 
     /** An unmodifiable list of sampled rows with a memo of each column's ranks. */
