@@ -101,14 +101,15 @@ class ThreadsAndRowRangesTest {
     }
 
     /**
-     * Many more blocks than are in flight (16 blocks of 4096 rows, at most 2·threads + 2 in flight), so
-     * blocks are recycled and placed out of order; the last block is partial.
+     * Many more blocks than are in flight (149 blocks of 4096 rows, at most 2·threads + 2 in flight), so
+     * blocks are recycled and placed out of order, and more than {@link DatasetWriter#WARM_UP_BLOCKS},
+     * so the pool grows to every worker during the run; the last block is partial.
      */
     @Test
     void manyBlocksInFlightWriteTheSameBytes() throws Exception {
         String yaml = """
                 dataset: greenhouse-readings
-                rows: 63001
+                rows: 610001
                 seed: 20261202
                 columns:
                   air_c:    {dist: normal, mean: 22, sd: 3, decimals: 2}
@@ -122,6 +123,7 @@ class ThreadsAndRowRangesTest {
                 """;
         CompiledSpec c = compile(yaml);
         assertEquals(4096, DatasetWriter.blockRows(3));
+        assertTrue(c.spec().rows() / 4096 > DatasetWriter.WARM_UP_BLOCKS);
         List<byte[]> one = generate(c, 1, "many-t1");
         for (int threads : new int[] {2, 3, 5}) {
             List<byte[]> many = generate(c, threads, "many-t" + threads);
@@ -129,6 +131,16 @@ class ThreadsAndRowRangesTest {
                 assertArrayEquals(one.get(f), many.get(f), c.outputFiles().get(f) + " with " + threads + " threads");
             }
         }
+    }
+
+    /** While the JIT warms up, one processor is left to it, but never fewer than one worker. */
+    @Test
+    void warmUpLeavesOneProcessorToTheCompiler() {
+        assertEquals(1, DatasetWriter.warmUpWorkers(2, 2));
+        assertEquals(15, DatasetWriter.warmUpWorkers(16, 16));
+        assertEquals(4, DatasetWriter.warmUpWorkers(4, 16));
+        assertEquals(1, DatasetWriter.warmUpWorkers(3, 1));
+        assertEquals(1, DatasetWriter.warmUpWorkers(1, 8));
     }
 
     @Test
