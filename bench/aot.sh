@@ -14,8 +14,8 @@ set -euo pipefail
 cd "$(dirname "$0")/.."
 RUNS=${1:-5}
 ROWS=${2:-1000000}
-SPEC=bench/mixed-1m.yaml
-JAR=cli/target/standin.jar
+# shellcheck source=bench/lib.sh
+. bench/lib.sh
 JDK25=${JDK25:-$(ls -d /usr/lib/jvm/*25* 2>/dev/null | head -1)}
 J25="$JDK25/bin/java"
 if [ ! -x "$J25" ]; then
@@ -56,7 +56,6 @@ echo
 echo "$SPEC, $ROWS rows, median wall time (s) of $RUNS alternating runs:"
 for n in jdk17 jdk25 jdk25-aot; do
   for t in 1 2; do
-    printf '%-14s %6.2f\n' "$n-$t" "$(awk -v n="$n-$t" '$1 == n { print $2 }' "$OUT/results" | sort -g |
-      awk '{ v[NR] = $1 } END { print (NR % 2 ? v[(NR + 1) / 2] : (v[NR / 2] + v[NR / 2 + 1]) / 2) }')"
+    printf '%-14s %6.2f\n' "$n-$t" "$(median "$n-$t" 2)"
   done
 done

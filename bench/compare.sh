@@ -15,8 +15,8 @@ set -euo pipefail
 cd "$(dirname "$0")/.."
 RUNS=${1:-5}
 ROWS=${2:-1000000}
-SPEC=bench/mixed-1m.yaml
-JAR=cli/target/standin.jar
+# shellcheck source=bench/lib.sh
+. bench/lib.sh
 BENCH_JAR=bench/target/benchmarks.jar
 PY=/usr/bin/python3
 
@@ -70,10 +70,6 @@ done
 for f in mixed-1m.csv mixed-1m.report.json mixed-1m.report.html; do
   cmp -s "$OUT/standin-1/$f" "$OUT/standin-2/$f" || { echo "compare.sh: $f differs between --threads 1 and 2" >&2; exit 1; }
 done
-
-median() { # name column
-  awk -v n="$1" -v c="$2" '$1 == n { print $c }' "$OUT/results" | sort -g | awk '{ v[NR] = $1 } END { print (NR % 2 ? v[(NR + 1) / 2] : (v[NR / 2] + v[NR / 2 + 1]) / 2) }'
-}
 
 echo
 echo "bench/mixed-1m.yaml, $ROWS rows, median of $RUNS alternating runs:"
