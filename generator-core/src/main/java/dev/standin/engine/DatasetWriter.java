@@ -278,7 +278,8 @@ final class DatasetWriter {
                     consume(b, stats, out, progress);
                     placement.release(b);
                     if (next < blockCount) {
-                        if (next == WARM_UP_BLOCKS) {
+                        // (>=: with 64 workers or more the first blocks in flight already pass the mark)
+                        if (next >= WARM_UP_BLOCKS && pool.getCorePoolSize() < workers) {
                             pool.setCorePoolSize(workers);
                         }
                         pending.add(submit(pool, free, placement, next++));

@@ -125,7 +125,8 @@ class ThreadsAndRowRangesTest {
         assertEquals(4096, DatasetWriter.blockRows(3));
         assertTrue(c.spec().rows() / 4096 > DatasetWriter.WARM_UP_BLOCKS);
         List<byte[]> one = generate(c, 1, "many-t1");
-        for (int threads : new int[] {2, 3, 5}) {
+        // 70 threads: 142 blocks in flight, past WARM_UP_BLOCKS before the first is consumed
+        for (int threads : new int[] {2, 3, 5, 70}) {
             List<byte[]> many = generate(c, threads, "many-t" + threads);
             for (int f = 0; f < one.size(); f++) {
                 assertArrayEquals(one.get(f), many.get(f), c.outputFiles().get(f) + " with " + threads + " threads");
