@@ -16,7 +16,7 @@ final class HermiteRule64 {
 
     /** The non-negative nodes x<sub>32</sub> .. x<sub>63</sub>, increasing. */
     private static final double[] HALF_POINTS = {
-0x1.1b3e351975fp-3, 0x1.a8f2d48f38dc8p-2, 0x1.6243a3f5a7736p-1, 0x1.f04414f234fdap-1,
+            0x1.1b3e351975fp-3, 0x1.a8f2d48f38dc8p-2, 0x1.6243a3f5a7736p-1, 0x1.f04414f234fdap-1,
             0x1.3f48826da302ap0, 0x1.86a0abb285de4p0, 0x1.ce365f93cf99cp0, 0x1.0b0afd5ecfdc2p1,
             0x1.2f263e3fc0fc4p1, 0x1.5373d53008b5ep1, 0x1.77fb1c9cd77e2p1, 0x1.9cc3feb6bf2fp1,
             0x1.c1d71216eda4cp1, 0x1.e73dbc4123e88p1, 0x1.06812de21a3c6p2, 0x1.19983e2da985ap2,

@@ -443,29 +443,20 @@ final class DatasetWriter {
          * consumed), so a ring of inFlight slots holds them.
          */
         void made(Block b) throws IOException {
-            Block[] ready;
+            List<Block> ready = new ArrayList<>();
             synchronized (this) {
                 waiting[(int) (b.index % waiting.length)] = b;
                 if (b.index != nextIndex) {
                     return;
                 }
-                int count = 0;
-                for (long i = nextIndex; i < nextIndex + waiting.length; i++) {
-                    Block w = waiting[(int) (i % waiting.length)];
-                    if (w == null || w.index != i) {
-                        break;
-                    }
-                    count++;
-                }
-                ready = new Block[count];
-                for (int j = 0; j < count; j++) {
-                    int slot = (int) (nextIndex % waiting.length);
-                    Block w = waiting[slot];
+                int slot = (int) (nextIndex % waiting.length);
+                for (Block w = waiting[slot]; w != null && w.index == nextIndex; w = waiting[slot]) {
                     waiting[slot] = null;
                     w.offset = nextOffset;
                     nextOffset += w.text.length();
                     nextIndex++;
-                    ready[j] = w;
+                    ready.add(w);
+                    slot = (int) (nextIndex % waiting.length);
                 }
             }
             for (Block w : ready) {

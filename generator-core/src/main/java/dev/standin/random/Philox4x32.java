@@ -11,11 +11,12 @@ package dev.standin.random;
  */
 public final class Philox4x32 {
 
-    private static final long M0 = 0xD2511F53L;
-    private static final long M1 = 0xCD9E8D57L;
-    private static final int W0 = 0x9E3779B9;
-    private static final int W1 = 0xBB67AE85;
-    private static final int ROUNDS = 10;
+    // package-private: RandomStreams.Lanes runs the same rounds lane by lane
+    static final long M0 = 0xD2511F53L;
+    static final long M1 = 0xCD9E8D57L;
+    static final int W0 = 0x9E3779B9;
+    static final int W1 = 0xBB67AE85;
+    static final int ROUNDS = 10;
 
     private Philox4x32() {
     }

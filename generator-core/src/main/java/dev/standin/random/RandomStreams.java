@@ -86,8 +86,8 @@ public final class RandomStreams {
     public static final class Lanes {
         /** Rows per chunk. */
         static final int ROWS = 512;
-        private static final int M0 = 0xD2511F53;
-        private static final int M1 = 0xCD9E8D57;
+        private static final int M0 = (int) Philox4x32.M0;
+        private static final int M1 = (int) Philox4x32.M1;
         private static final int M0_HI = M0 >>> 16;
         private static final int M0_LO = M0 & 0xFFFF;
         private static final int M1_HI = M1 >>> 16;
@@ -123,10 +123,10 @@ public final class RandomStreams {
             }
             int k0 = (int) seed;
             int k1 = (int) (seed >>> 32);
-            for (int round = 0; round < 10; round++) {
+            for (int round = 0; round < Philox4x32.ROUNDS; round++) {
                 if (round > 0) {
-                    k0 += 0x9E3779B9;
-                    k1 += 0xBB67AE85;
+                    k0 += Philox4x32.W0;
+                    k1 += Philox4x32.W1;
                 }
                 for (int r = 0; r < n; r++) {
                     int a = w0[r];
