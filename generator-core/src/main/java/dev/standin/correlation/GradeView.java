@@ -6,6 +6,9 @@ import dev.standin.marginal.Marginal;
  * A marginal seen through its mid-distribution function: values G(F<sup>-1</sup>(p)). The Pearson
  * correlation of two such views is the population Spearman ρ of the originals, ties counted by
  * mid-ranks (Kruskal 1958), so NORTA on grade views solves Spearman targets for discrete columns.
+ * For a continuous marginal G = F, so G(F<sup>-1</sup>(p)) = p: the view returns p itself, exactly and
+ * without inverting F (whatever F is, its grades are uniform, so the latent of a continuous–discrete
+ * Spearman target does not depend on the continuous column's family).
  */
 final class GradeView implements Marginal {
 
@@ -31,7 +34,7 @@ final class GradeView implements Marginal {
 
     @Override
     public double quantile(double p) {
-        return m.grade(m.quantile(p));
+        return m.isDiscrete() ? m.grade(m.quantile(p)) : p;
     }
 
     @Override

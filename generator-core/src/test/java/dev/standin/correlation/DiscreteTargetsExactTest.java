@@ -290,6 +290,41 @@ class DiscreteTargetsExactTest {
         }
     }
 
+    @Test
+    void spearmanWithABalancedFlagHasAClosedFormThatNoContinuousMarginalChanges() throws Exception {
+        // The mid-grade of a continuous X is F(X) = Φ(Z1), uniform whatever F is, so a Spearman target
+        // between a continuous and a discrete column fixes the same latent r for every continuous
+        // marginal. With Y = 1{Z2 > 0} (Bernoulli 1/2, mid-grades affine in Y): Cov(U, Y) =
+        // P(W < Z1, Z2 > 0) − 1/4 for W ~ N(0, 1) independent, and ((Z1 − W)/√2, Z2) is standard
+        // bivariate normal with correlation r/√2, so by Sheppard's orthant formula Cov = arcsin(r/√2)/(2π)
+        // and ρ_S = Cov/(sd U · sd Y) = (2√3/π) arcsin(r/√2); at r = 1 that is √3/2, Corr(U, 1{U > 1/2})
+        // (derived here).
+        Marginal flag = Families.bernoulli(0.5);
+        Marginal[] continuous = {
+            dev.standin.marginal.NormalMarginal.of(3, 2),
+            Families.gamma(0.5, 4),
+            Families.beta(0.3, 2),
+            Families.lognormal(0, 2),
+            Families.weibull(0.6, 1),
+        };
+        for (double r : new double[] {-1.0, -0.6, 0.25, 0.8, 1.0}) {
+            double closed = 2 * Math.sqrt(3) / Math.PI * Math.asin(r / Math.sqrt(2));
+            double first = ranks.spearman(continuous[0], flag, r);
+            assertEquals(closed, first, 1e-12, "spearman at r " + r);
+            for (Marginal x : continuous) {
+                // exactly the same number: nothing of F enters
+                assertEquals(first, ranks.spearman(x, flag, r), 0.0, x.family() + " at r " + r);
+                assertEquals(first, ranks.spearman(flag, x, r), 0.0, x.family() + ", sides swapped, at r " + r);
+            }
+        }
+        double latent = ranks.spearmanLatent(continuous[0], flag, 0.5);
+        assertEquals(Math.sqrt(2) * Math.sin(Math.PI * 0.5 / (2 * Math.sqrt(3))), latent, 1e-10,
+                "the inverse of the closed form at ρ_S = 0.5");
+        for (Marginal x : continuous) {
+            assertEquals(latent, ranks.spearmanLatent(x, flag, 0.5), 0.0, x.family());
+        }
+    }
+
     /** Φ2(x, t; r) with the infinite thresholds of the outer cells. */
     private static double b(double x, double t, double r) {
         return IndependentNormal2.cdf(x, t, r);
