@@ -40,7 +40,6 @@ import java.util.concurrent.Future;
 import java.util.concurrent.LinkedBlockingQueue;
 import java.util.concurrent.ThreadPoolExecutor;
 import java.util.concurrent.TimeUnit;
-import java.util.concurrent.atomic.AtomicInteger;
 import java.util.function.LongConsumer;
 
 /**
@@ -52,7 +51,7 @@ import java.util.function.LongConsumer;
  * ({@link RowEncoder}) and summarised ({@link DatasetStats.Block}) on one thread, and blocks are digested
  * and merged into the statistics strictly in row order on the calling thread. With more than one
  * thread, workers make blocks ahead (at most {@code 2·threads + 2} blocks in flight, so memory stays
- * bounded) and each block is written to its place in the file by a worker ({@link Placement}), mostly
+ * bounded) and each block is written to its place in the file by a worker ({@link BlockPlacement}), mostly
  * the one that made it, so the bytes are copied to the kernel from the cache they were made in. Every
  * value, every byte and every statistic is therefore the same for any thread count.
  */
@@ -181,25 +180,19 @@ final class DatasetWriter {
     }
 
     /** One block's buffers; they travel with the block from the worker that makes it to its writer and the in-order consumer. */
-    private static final class Block {
-        long index;
+    private static final class Block extends BlockPlacement.Placed {
         long first;
         int n;
-        /** Where the block's text goes in the data file, once every earlier block's length is known. */
-        long offset;
-        /** Set to 2 when handed out: the writer and the in-order consumer each release the block once. */
-        final AtomicInteger holders = new AtomicInteger();
         final double[][] values;
         final boolean[][] missing;
-        final ByteText text;
         final DatasetStats.Block summary;
         final RowSampler.Scratch scratch;
         final RowEncoder.State state;
 
         Block(int columns, int rows, RowSampler sampler, RowEncoder encoder, DatasetStats.Block summary) {
+            super(new ByteText(rows * Math.max(16, 12 * columns)));
             this.values = new double[columns][rows];
             this.missing = new boolean[columns][rows];
-            this.text = new ByteText(rows * Math.max(16, 12 * columns));
             this.summary = summary;
             this.scratch = sampler.scratch();
             this.state = encoder.state();
@@ -259,7 +252,7 @@ final class DatasetWriter {
             for (int i = 0; i < inFlight; i++) {
                 free.add(newBlock());
             }
-            Placement placement = new Placement(out, inFlight, free);
+            BlockPlacement<Block> placement = new BlockPlacement<>(out::writeAt, out.length(), inFlight, free);
             int warmUpWorkers = warmUpWorkers(workers, Runtime.getRuntime().availableProcessors());
             ThreadPoolExecutor pool = new ThreadPoolExecutor(warmUpWorkers, workers, 0L, TimeUnit.MILLISECONDS,
                     new LinkedBlockingQueue<>(), r -> {
@@ -291,7 +284,8 @@ final class DatasetWriter {
             }
         }
 
-        private Future<Block> submit(ExecutorService pool, BlockingQueue<Block> free, Placement placement, long index) {
+        private Future<Block> submit(ExecutorService pool, BlockingQueue<Block> free, BlockPlacement<Block> placement,
+                                     long index) {
             return pool.submit(() -> {
                 Block b = free.take();
                 b.index = index;
@@ -388,6 +382,11 @@ final class DatasetWriter {
             this.digest = digest;
         }
 
+        /** Writes bytes at a position without digesting them (a worker placing its block). */
+        void writeAt(ByteText text, long position) throws IOException {
+            text.writeTo(channel, position);
+        }
+
         /** Writes bytes at the end without digesting them ({@link #digest} does, in file order). */
         void writeAtEnd(ByteText text) throws IOException {
             text.writeTo(channel, length);
@@ -417,64 +416,4 @@ final class DatasetWriter {
         }
     }
 
-    /**
-     * Gives each block made by a worker its offset in the data file, which is known once every earlier
-     * block's length is: the worker whose block is the first unplaced one places it and every later
-     * block already made, and writes them (positional writes, so workers write at once). A block goes
-     * back to the free blocks when both its writer and the in-order consumer have released it.
-     */
-    private static final class Placement {
-        private final DataFile file;
-        private final Block[] waiting;
-        private final BlockingQueue<Block> free;
-        private long nextIndex;
-        private long nextOffset;
-
-        Placement(DataFile file, int inFlight, BlockingQueue<Block> free) {
-            this.file = file;
-            this.waiting = new Block[inFlight];
-            this.free = free;
-            this.nextOffset = file.length();
-        }
-
-        /**
-         * Called by the worker that made a block. Blocks with index in [nextIndex, nextIndex + inFlight)
-         * only are ever waiting (a block's task is submitted after the block inFlight before it was
-         * consumed), so a ring of inFlight slots holds them.
-         */
-        void made(Block b) throws IOException {
-            List<Block> ready = new ArrayList<>();
-            synchronized (this) {
-                waiting[(int) (b.index % waiting.length)] = b;
-                if (b.index != nextIndex) {
-                    return;
-                }
-                int slot = (int) (nextIndex % waiting.length);
-                for (Block w = waiting[slot]; w != null && w.index == nextIndex; w = waiting[slot]) {
-                    waiting[slot] = null;
-                    w.offset = nextOffset;
-                    nextOffset += w.text.length();
-                    nextIndex++;
-                    ready.add(w);
-                    slot = (int) (nextIndex % waiting.length);
-                }
-            }
-            for (Block w : ready) {
-                w.text.writeTo(file.channel, w.offset);
-                release(w);
-            }
-        }
-
-        /** Releases a block; the second release returns it to the free blocks. */
-        void release(Block b) {
-            if (b.holders.decrementAndGet() == 0) {
-                free.add(b);
-            }
-        }
-
-        /** The end of the placed blocks. */
-        synchronized long end() {
-            return nextOffset;
-        }
-    }
 }
