@@ -211,18 +211,13 @@ public final class RowSampler {
             double[] v = values[i];
             boolean[] miss = missing[i];
             if (isSequence[i]) {
-                for (int r = 0; r < n; r++) {
-                    v[r] = (double) sequenceValue(i, from + r);
-                    miss[r] = false;
-                }
+                sequence(i, from, v, miss, n);
                 continue;
             }
             double share = nulls[i];
             if (share > 0) {
                 RandomStreams.uniforms(seed, missingStream[i], from, u, n, scratch.lanes);
-                for (int r = 0; r < n; r++) {
-                    miss[r] = u[r] < share;
-                }
+                flagMissing(u, share, miss, n);
             } else {
                 java.util.Arrays.fill(miss, 0, n, false);
             }
@@ -230,23 +225,49 @@ public final class RowSampler {
             int p = latentIndex[i];
             if (p < 0) {
                 RandomStreams.uniforms(seed, valueStream[i], from, u, n, scratch.lanes);
-                for (int r = 0; r < n; r++) {
-                    v[r] = map.quantile(u[r]);
-                }
+                quantiles(map, u, v, n);
                 continue;
             }
-            // w = L_p · z, summed over q in the same order as draw() so the bits agree
-            int[] idx = factorIndex[p];
-            double[] lrow = factorValue[p];
-            java.util.Arrays.fill(w, 0, n, 0.0);
-            for (int j = 0; j < lrow.length; j++) {
-                double l = lrow[j];
-                double[] zq = z[idx[j]];
-                for (int r = 0; r < n; r++) {
-                    w[r] += l * zq[r];
-                }
-            }
+            factorStep(factorValue[p], factorIndex[p], z, w, n);
             map.fromLatent(w, v, n);
+        }
+    }
+
+    // The per-row loops below are methods of their own (as are the maps' and the streams'): the JIT
+    // compiles each small loop on its own, soon after the first blocks, instead of recompiling one
+    // large method with every loop inlined (first on stack replacement, then whole), which kept
+    // the first few hundred thousand rows of a run in slower code.
+
+    private void sequence(int column, long from, double[] v, boolean[] miss, int n) {
+        for (int r = 0; r < n; r++) {
+            v[r] = (double) sequenceValue(column, from + r);
+            miss[r] = false;
+        }
+    }
+
+    private static void flagMissing(double[] u, double share, boolean[] miss, int n) {
+        for (int r = 0; r < n; r++) {
+            miss[r] = u[r] < share;
+        }
+    }
+
+    private static void quantiles(LatentQuantile map, double[] u, double[] v, int n) {
+        for (int r = 0; r < n; r++) {
+            v[r] = map.quantile(u[r]);
+        }
+    }
+
+    /** w = L<sub>p</sub> · z over the factor row's non-zero entries, summed in the order draw() sums them so the bits agree. */
+    private static void factorStep(double[] lrow, int[] idx, double[][] z, double[] w, int n) {
+        java.util.Arrays.fill(w, 0, n, 0.0);
+        for (int j = 0; j < lrow.length; j++) {
+            axpy(lrow[j], z[idx[j]], w, n);
+        }
+    }
+
+    private static void axpy(double l, double[] zq, double[] w, int n) {
+        for (int r = 0; r < n; r++) {
+            w[r] += l * zq[r];
         }
     }
 }

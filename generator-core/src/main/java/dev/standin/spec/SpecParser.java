@@ -16,8 +16,7 @@ import java.util.Map;
 import java.util.Set;
 import java.util.regex.Pattern;
 import org.yaml.snakeyaml.LoaderOptions;
-import org.yaml.snakeyaml.Yaml;
-import org.yaml.snakeyaml.constructor.SafeConstructor;
+import org.yaml.snakeyaml.composer.Composer;
 import org.yaml.snakeyaml.error.MarkedYAMLException;
 import org.yaml.snakeyaml.error.YAMLException;
 import org.yaml.snakeyaml.nodes.MappingNode;
@@ -25,6 +24,9 @@ import org.yaml.snakeyaml.nodes.Node;
 import org.yaml.snakeyaml.nodes.NodeTuple;
 import org.yaml.snakeyaml.nodes.ScalarNode;
 import org.yaml.snakeyaml.nodes.SequenceNode;
+import org.yaml.snakeyaml.parser.ParserImpl;
+import org.yaml.snakeyaml.reader.StreamReader;
+import org.yaml.snakeyaml.resolver.Resolver;
 
 /**
  * Parses spec format v1 from YAML into a checked {@link Spec}.
@@ -113,9 +115,13 @@ public final class SpecParser {
         options.setNestingDepthLimit(50);
         options.setCodePointLimit(MAX_SPEC_BYTES);
         options.setAllowRecursiveKeys(false);
-        Yaml yaml = new Yaml(new SafeConstructor(options));
+        // Only the node graph is read (what Yaml.compose does, without building a Yaml object's
+        // constructor, representer and dumper options): no Java object is ever constructed from the
+        // document, and the typed readers take it from there.
         try {
-            Node root = yaml.compose(new StringReader(text));
+            Composer composer = new Composer(new ParserImpl(new StreamReader(new StringReader(text)), options),
+                    new Resolver(), options);
+            Node root = composer.getSingleNode();
             if (root == null) {
                 throw new SpecException(SpecProblem.at(Mark.startOf(file), "spec is empty; it needs at least dataset, rows, seed and columns"));
             }
