@@ -266,60 +266,65 @@ final class RowEncoder {
      * {@link Long#toString(long)}, levels as encoded once), with room reserved once per row.
      */
     private void encodeBoundedCsv(long firstRow, int n, double[][] values, boolean[][] missing, ByteText out) {
+        for (int r = 0; r < n; r++) {
+            encodeBoundedCsvRow(firstRow + r, r, values, missing, out);
+        }
+    }
+
+    /**
+     * One row (a method of its own, called once per row, so the JIT compiles it whole after a few
+     * thousand rows instead of compiling the block loop on stack replacement first).
+     */
+    private void encodeBoundedCsvRow(long row, int r, double[][] values, boolean[][] missing, ByteText out) {
         int k = kinds.length;
         byte delim = delimiter[0];
-        for (int r = 0; r < n; r++) {
-            long row = firstRow + r;
-            byte[] b = out.reserve(csvRowBound);
-            int p = out.length();
-            for (int i = 0; i < k; i++) {
-                if (i > 0) {
-                    b[p++] = delim;
+        byte[] b = out.reserve(csvRowBound);
+        int p = out.length();
+        for (int i = 0; i < k; i++) {
+            if (i > 0) {
+                b[p++] = delim;
+            }
+            if (missing[i][r]) {
+                System.arraycopy(nullBytes, 0, b, p, nullBytes.length);
+                p += nullBytes.length;
+                continue;
+            }
+            double v = values[i][r];
+            switch (kinds[i]) {
+                case FIXED -> {
+                    long q = NumberText.scaledHalfEven(v, decimals[i]);
+                    if (q == NumberText.NO_FAST_PATH) {
+                        // beyond 2^53 or 2^62 scaled: BigDecimal, through the checked buffer
+                        out.setLength(p);
+                        values[i][r] = out.appendFixed(v, decimals[i]);
+                        b = out.reserve(csvRowBound);
+                        p = out.length();
+                    } else {
+                        boolean negative = v < 0;
+                        p = NumberText.writeScaled(q, negative, decimals[i], b, p);
+                        values[i][r] = NumberText.scaledValue(q, negative, decimals[i]);
+                    }
                 }
-                if (missing[i][r]) {
-                    for (byte x : nullBytes) {
-                        b[p++] = x;
+                case INTEGER, SEQUENCE -> {
+                    long whole = kinds[i] == Kind.SEQUENCE ? start[i] + step[i] * row : (long) v;
+                    if (whole == Long.MIN_VALUE) {
+                        out.setLength(p);
+                        out.appendLong(whole);
+                        b = out.reserve(csvRowBound);
+                        p = out.length();
+                    } else {
+                        p = ByteText.writeLong(whole, b, p);
                     }
-                    continue;
                 }
-                double v = values[i][r];
-                switch (kinds[i]) {
-                    case FIXED -> {
-                        long q = NumberText.scaledHalfEven(v, decimals[i]);
-                        if (q == NumberText.NO_FAST_PATH) {
-                            // beyond 2^53 or 2^62 scaled: BigDecimal, through the checked buffer
-                            out.setLength(p);
-                            values[i][r] = out.appendFixed(v, decimals[i]);
-                            b = out.reserve(csvRowBound);
-                            p = out.length();
-                        } else {
-                            boolean negative = v < 0;
-                            p = NumberText.writeScaled(q, negative, decimals[i], b, p);
-                            values[i][r] = NumberText.scaledValue(q, negative, decimals[i]);
-                        }
-                    }
-                    case INTEGER, SEQUENCE -> {
-                        long whole = kinds[i] == Kind.SEQUENCE ? start[i] + step[i] * row : (long) v;
-                        if (whole == Long.MIN_VALUE) {
-                            out.setLength(p);
-                            out.appendLong(whole);
-                            b = out.reserve(csvRowBound);
-                            p = out.length();
-                        } else {
-                            p = ByteText.writeLong(whole, b, p);
-                        }
-                    }
-                    default -> {
-                        byte[] level = levelBytes[i][kinds[i] == Kind.BOOLEAN ? (v == 1.0 ? 1 : 0) : (int) v];
-                        for (byte x : level) {
-                            b[p++] = x;
-                        }
-                    }
+                default -> {
+                    byte[] level = levelBytes[i][kinds[i] == Kind.BOOLEAN ? (v == 1.0 ? 1 : 0) : (int) v];
+                    System.arraycopy(level, 0, b, p, level.length);
+                    p += level.length;
                 }
             }
-            b[p++] = '\n';
-            out.setLength(p);
         }
+        b[p++] = '\n';
+        out.setLength(p);
     }
 
     private double cell(int i, double v, long row, ByteText out, State state) {
