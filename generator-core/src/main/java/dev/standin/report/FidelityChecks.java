@@ -11,7 +11,6 @@ import dev.standin.spec.ColumnSpec;
 import dev.standin.spec.CorrelationSpec;
 import dev.standin.spec.Spec;
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.List;
 import java.util.concurrent.Callable;
 import java.util.concurrent.ForkJoinTask;
@@ -173,27 +172,9 @@ public final class FidelityChecks {
         return RowSample.pairwiseComplete(sample, i, i).x();
     }
 
-    /** KS distance of the sample from the distribution of the rounded (or discrete) value. */
+    /** KS distance of the sample from the distribution of the rounded (or discrete) value ({@link KolmogorovDistance}). */
     static double ksDistance(Marginal m, double[] values, double h) {
-        double[] x = values.clone();
-        Arrays.sort(x);
-        int n = x.length;
-        double d = 0;
-        boolean discrete = m.isDiscrete();
-        int i = 0;
-        while (i < n) {
-            int j = i;
-            while (j + 1 < n && x[j + 1] == x[i]) {
-                j++;
-            }
-            double v = x[i];
-            double upper = discrete ? m.cdf(v) : m.cdf(v + h / 2);
-            double lower = discrete ? m.cdf(v - 1) : (h > 0 ? m.cdf(v - h / 2) : upper);
-            d = Math.max(d, Math.abs((double) (j + 1) / n - upper));
-            d = Math.max(d, Math.abs((double) i / n - lower));
-            i = j + 1;
-        }
-        return d;
+        return KolmogorovDistance.of(m, values, h);
     }
 
     private static void ks(List<Check> checks, String name, Marginal m, double[] values, double h) {
