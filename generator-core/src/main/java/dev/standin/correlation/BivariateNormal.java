@@ -1,8 +1,7 @@
 package dev.standin.correlation;
 
+import dev.standin.marginal.GaussLegendre;
 import dev.standin.marginal.StandardNormal;
-import org.apache.commons.math3.analysis.integration.gauss.GaussIntegrator;
-import org.apache.commons.math3.analysis.integration.gauss.GaussIntegratorFactory;
 import org.apache.commons.math3.util.FastMath;
 
 /**
@@ -10,25 +9,15 @@ import org.apache.commons.math3.util.FastMath;
  * Z<sub>2</sub> ≤ k) by Sheppard's formula Φ<sub>2</sub> = Φ(h)Φ(k) + (1/2π) ∫<sub>0</sub><sup>arcsin r</sup>
  * exp(−(h² + k² − 2hk sin θ)/(2cos² θ)) dθ (W. F. Sheppard 1900; see Z. Drezner and G. O.
  * Wesolowsky, "On the computation of the bivariate normal integral", J. Statist. Comput. Simul. 35
- * (1990) 101-107), with composite Gauss–Legendre quadrature (commons-math3 nodes). Accurate to
+ * (1990) 101-107), with composite Gauss–Legendre quadrature (commons-math3's nodes, held in {@link GaussLegendre}). Accurate to
  * about 1e-12 for |r| ≤ 0.99 and 1e-9 beyond; |r| = 1 is exact.
  */
 public final class BivariateNormal {
 
     private static final int PIECES = 8;
     // the rule is computed once: immutable after class initialisation, shared by every thread
-    private static final double[] X;
-    private static final double[] W;
-
-    static {
-        GaussIntegrator rule = new GaussIntegratorFactory().legendre(20, 0, 1);
-        X = new double[rule.getNumberOfPoints()];
-        W = new double[X.length];
-        for (int i = 0; i < X.length; i++) {
-            X[i] = rule.getPoint(i);
-            W[i] = rule.getWeight(i);
-        }
-    }
+    private static final double[] X = GaussLegendre.points(20);
+    private static final double[] W = GaussLegendre.weights(20);
 
     private final double[] x = X;
     private final double[] w = W;

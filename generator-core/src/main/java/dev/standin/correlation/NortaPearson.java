@@ -1,12 +1,11 @@
 package dev.standin.correlation;
 
+import dev.standin.marginal.GaussLegendre;
 import dev.standin.marginal.Marginal;
 import dev.standin.marginal.StandardNormal;
 import dev.standin.random.NormalQuantile;
 import java.util.ArrayList;
 import java.util.List;
-import org.apache.commons.math3.analysis.integration.gauss.GaussIntegrator;
-import org.apache.commons.math3.analysis.integration.gauss.GaussIntegratorFactory;
 import org.apache.commons.math3.analysis.solvers.BrentSolver;
 import org.apache.commons.math3.exception.NoBracketingException;
 import org.apache.commons.math3.exception.TooManyEvaluationsException;
@@ -65,13 +64,8 @@ public final class NortaPearson {
             Z[i] = sqrt2 * points[i];
             W[i] = weights[i] / sqrtPi;
         }
-        GaussIntegrator legendre = new GaussIntegratorFactory().legendre(16, 0, 1);
-        LEGENDRE_X = new double[legendre.getNumberOfPoints()];
-        LEGENDRE_W = new double[LEGENDRE_X.length];
-        for (int i = 0; i < LEGENDRE_X.length; i++) {
-            LEGENDRE_X[i] = legendre.getPoint(i);
-            LEGENDRE_W[i] = legendre.getWeight(i);
-        }
+        LEGENDRE_X = GaussLegendre.points(16);
+        LEGENDRE_W = GaussLegendre.weights(16);
     }
 
     private final double[] z = Z;

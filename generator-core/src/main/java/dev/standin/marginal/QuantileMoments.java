@@ -1,12 +1,10 @@
 package dev.standin.marginal;
 
 import java.util.function.DoubleUnaryOperator;
-import org.apache.commons.math3.analysis.integration.gauss.GaussIntegrator;
-import org.apache.commons.math3.analysis.integration.gauss.GaussIntegratorFactory;
 
 /**
  * Mean and sd of a distribution from its quantile function, E[X<sup>k</sup>] = ∫<sub>0</sub><sup>1</sup>
- * Q(u)<sup>k</sup> du, by composite Gauss–Legendre quadrature (nodes from commons-math3) on
+ * Q(u)<sup>k</sup> du, by composite Gauss–Legendre quadrature (commons-math3's nodes, held in {@link GaussLegendre}) on
  * intervals graded geometrically towards both ends, [10<sup>-j-1</sup>, 10<sup>-j</sup>] down to
  * 10<sup>-16</sup>, which copes with the logarithmic growth of Q in unbounded tails. A fixed rule, so
  * the result is the same on every run and JVM.
@@ -16,8 +14,9 @@ public final class QuantileMoments {
     private static final int POINTS = 32;
     private static final int DECADES = 16;
 
-    /** The rule, computed once (immutable, shared). */
-    private static final GaussIntegrator RULE = new GaussIntegratorFactory().legendre(POINTS, 0, 1);
+    /** The rule's nodes and weights on [0, 1] (immutable, shared). */
+    private static final double[] X = GaussLegendre.points(POINTS);
+    private static final double[] W = GaussLegendre.weights(POINTS);
 
     private QuantileMoments() {
     }
@@ -39,7 +38,6 @@ public final class QuantileMoments {
 
     /** {∫(q − c), ∫(q − c)²}. */
     private static double[] moments(DoubleUnaryOperator q, double first) {
-        GaussIntegrator rule = RULE;
         double s1 = 0;
         double s2 = 0;
         // center: [0.1, 0.9]; then [10^-(j+1), 10^-j] and its mirror for j = 1..DECADES
@@ -55,9 +53,9 @@ public final class QuantileMoments {
         for (double[] piece : pieces) {
             double a = piece[0];
             double b = piece[1];
-            for (int i = 0; i < rule.getNumberOfPoints(); i++) {
-                double u = a + (b - a) * rule.getPoint(i);
-                double w = (b - a) * rule.getWeight(i);
+            for (int i = 0; i < X.length; i++) {
+                double u = a + (b - a) * X[i];
+                double w = (b - a) * W[i];
                 double x = q.applyAsDouble(u) - first;
                 s1 += w * x;
                 s2 += w * x * x;
