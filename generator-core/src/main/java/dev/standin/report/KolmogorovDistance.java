@@ -48,15 +48,18 @@ final class KolmogorovDistance {
         Terms t = new Terms(m, x, first, n, h);
         int runs = (groups + RUN - 1) / RUN;
         double[] bound = new double[runs];
+        // F below the run's first value and up to its last, kept for the full evaluation
+        double[] low = new double[runs];
+        double[] high = new double[runs];
         double d = 0;
         for (int r = 0; r < runs; r++) {
             int g0 = r * RUN;
             int g1 = Math.min(groups, g0 + RUN) - 1;
-            double fl = t.lower(g0);
-            double fu = t.upper(g1);
-            d = Math.max(d, Math.abs(t.below(g0) - fl));
-            d = Math.max(d, Math.abs(t.upTo(g1) - fu));
-            bound[r] = Math.max(t.upTo(g1) - fl, fu - t.below(g0));
+            low[r] = t.lower(g0);
+            high[r] = t.upper(g1);
+            d = Math.max(d, Math.abs(t.below(g0) - low[r]));
+            d = Math.max(d, Math.abs(t.upTo(g1) - high[r]));
+            bound[r] = Math.max(t.upTo(g1) - low[r], high[r] - t.below(g0));
         }
         Integer[] order = new Integer[runs];
         for (int r = 0; r < runs; r++) {
@@ -71,9 +74,11 @@ final class KolmogorovDistance {
             int g0 = r * RUN;
             int g1 = Math.min(groups, g0 + RUN) - 1;
             for (int g = g0; g <= g1; g++) {
-                // the run's two end terms are already in d; taking them again leaves the maximum unchanged
-                d = Math.max(d, Math.abs(t.upTo(g) - t.upper(g)));
-                d = Math.max(d, Math.abs(t.below(g) - t.lower(g)));
+                // F once per point: the run's ends are known, and unrounded continuous values have one point
+                double upper = g == g1 ? high[r] : t.upper(g);
+                double lower = g == g0 ? low[r] : t.onePoint() ? upper : t.lower(g);
+                d = Math.max(d, Math.abs(t.upTo(g) - upper));
+                d = Math.max(d, Math.abs(t.below(g) - lower));
             }
         }
         return d;
@@ -96,6 +101,11 @@ final class KolmogorovDistance {
         double upper(int g) {
             double v = x[first[g]];
             return m.isDiscrete() ? m.cdf(v) : m.cdf(v + h / 2);
+        }
+
+        /** True when the probabilities below and up to a value are one evaluation (unrounded continuous values). */
+        boolean onePoint() {
+            return !m.isDiscrete() && !(h > 0);
         }
 
         /** The model's probability below value g. */
