@@ -69,6 +69,24 @@ public final class NumberText {
         return new String(buf, 0, end, java.nio.charset.StandardCharsets.ISO_8859_1);
     }
 
+    /**
+     * Appends {@link #fixed(double, int)} of a finite value to a builder without making a String:
+     * the digits go through {@code scratch} (at least {@link #MAX_FIXED_CHARS} bytes, reused by the
+     * caller). For text built from many numbers, such as a chart's coordinates.
+     */
+    public static void appendFixed(StringBuilder sb, double value, int decimals, byte[] scratch) {
+        requireFinite(value);
+        long q = scaledHalfEven(value, decimals);
+        if (q == NO_FAST_PATH) {
+            sb.append(fixed(value, decimals));
+            return;
+        }
+        int end = writeScaled(q, value < 0, decimals, scratch, 0);
+        for (int i = 0; i < end; i++) {
+            sb.append((char) scratch[i]);
+        }
+    }
+
     /** The longest text {@link #writeScaled} produces: sign, 19 digits, point, leading zeros. */
     public static final int MAX_FIXED_CHARS = 40;
 

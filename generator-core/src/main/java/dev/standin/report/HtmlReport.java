@@ -417,6 +417,8 @@ public final class HtmlReport {
                 }
                 // each point is a zero-length segment with a round cap: a dot in a few bytes
                 h.append("<path stroke=\"").append(DATA).append("\" stroke-opacity=\"0.4\" stroke-width=\"2.6\" stroke-linecap=\"round\" d=\"");
+                // the points' coordinates are most of the page: written as f() writes them, without a String each
+                byte[] digits = new byte[NumberText.MAX_FIXED_CHARS];
                 for (double[] r : rows) {
                     double vx = r[cols.get(b)];
                     double vy = r[cols.get(a)];
@@ -425,7 +427,11 @@ public final class HtmlReport {
                     }
                     double px = x0 + 3 + (vx - lo[b]) / (hi[b] - lo[b]) * (cell - 10);
                     double py = y0 + cell - 7 - (vy - lo[a]) / (hi[a] - lo[a]) * (cell - 10);
-                    h.append('M').append(f(px)).append(' ').append(f(py)).append("h0");
+                    h.append('M');
+                    NumberText.appendFixed(h, Double.isFinite(px) ? px : 0, 1, digits);
+                    h.append(' ');
+                    NumberText.appendFixed(h, Double.isFinite(py) ? py : 0, 1, digits);
+                    h.append("h0");
                 }
                 h.append("\"/>\n");
             }

@@ -134,6 +134,29 @@ class NumberTextTest {
         }
     }
 
+    /** appendFixed writes BigDecimal's half-even text after what the builder holds, on seeded values and the edges. */
+    @Test
+    void appendFixedEqualsBigDecimalHalfEven() {
+        SplittableRandom rnd = new SplittableRandom(20261202L);
+        byte[] scratch = new byte[NumberText.MAX_FIXED_CHARS];
+        StringBuilder sb = new StringBuilder();
+        for (int n = 0; n < 200_000; n++) {
+            int d = rnd.nextInt(16);
+            double x = n % 5 == 4 ? rnd.nextDouble(-50, 1200) : sample(rnd, n % 4, d);
+            sb.setLength(0);
+            sb.append('M');
+            NumberText.appendFixed(sb, x, d, scratch);
+            assertEquals("M" + bigDecimalFixed(x, d).replaceFirst("^-(0\\.?0*)$", "$1"), sb.toString(),
+                    Double.doubleToRawLongBits(x) + "L with " + d);
+        }
+        for (double x : new double[] {-0.0, 0.05, 0.15, -0.04, 1e15, 1e300, -Double.MAX_VALUE, Double.MIN_VALUE}) {
+            sb.setLength(0);
+            NumberText.appendFixed(sb, x, 1, scratch);
+            assertEquals(NumberText.fixed(x, 1), sb.toString(), x + " with 1 decimal");
+        }
+        assertThrows(IllegalArgumentException.class, () -> NumberText.appendFixed(new StringBuilder(), Double.NaN, 1, scratch));
+    }
+
     @Test
     void fixedMatchesTheIntegerReferenceOnSeededValues() {
         SplittableRandom rnd = new SplittableRandom(4511638L);
