@@ -41,15 +41,16 @@ public final class StandardNormal {
      * {@link Erf#erfc(double)} of commons-math3 3.6.1, the same floating-point operations in the same
      * order, specialised to the one shape parameter it uses: erfc(x) = Q(1/2, x²) for x ≥ 0 and
      * 2 − Q(1/2, x²) below, where Q(a, t) is {@code Gamma.regularizedGammaQ(a, t, 1e-15, 10000)}: for
-     * t &lt; a + 1, 1 − P(a, t) by P's power series (Abramowitz and Stegun 6.5.29); otherwise the
-     * continued fraction of Q (A&amp;S 6.5.31) by the modified Lentz method ({@code ContinuedFraction},
-     * Lentz 1976). The specialisation drops the argument checks, the continued fraction's object and
+     * t &lt; a + 1, 1 − P(a, t) by P's power series (Abramowitz and Stegun 6.5.29, from memory);
+     * otherwise the continued fraction of Q (A&amp;S 6.5.31, from memory) by the modified Lentz
+     * method ({@code ContinuedFraction}, Lentz 1976). The specialisation drops the argument checks, the continued fraction's object and
      * virtual calls, and ln Γ(1/2) per call ({@link #LOG_GAMMA_HALF}); its zero tests
      * {@code Precision.equals(v, 0.0, 1e-50)} are |v| ≤ 10<sup>−50</sup>, the same set of doubles.
      * Every result is the library's bits ({@code StandardNormalTest} compares millions), which keeps
-     * NORTA's latent correlations, the quantile tables and so every output byte as they were; it is
-     * about twice as fast, and NORTA's smooth-by-step cross moments call it tens of thousands of
-     * times in a cold JVM. A case the library would reject (no convergence) goes to the library.
+     * NORTA's latent correlations, the quantile tables and so every output byte as they were.
+     * NORTA's smooth-by-step cross moments call it tens of thousands of times in a cold JVM (the
+     * README's Performance section has the measured effect). A case the library would reject (no
+     * convergence) goes to the library.
      */
     static double erfc(double x) {
         if (FastMath.abs(x) > 40) {
