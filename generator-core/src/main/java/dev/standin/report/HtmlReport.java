@@ -376,6 +376,8 @@ public final class HtmlReport {
                 .append("\" role=\"img\" class=\"chart\" data-chart=\"scatter-matrix\" aria-label=\"scatter-plot matrix\"><title>scatter-plot matrix</title>\n");
         double[] lo = new double[k];
         double[] hi = new double[k];
+        // the points' coordinates are most of the page: written by f(h, v, digits), without a String each
+        byte[] digits = new byte[NumberText.MAX_FIXED_CHARS];
         for (int a = 0; a < k; a++) {
             lo[a] = Double.POSITIVE_INFINITY;
             hi[a] = Double.NEGATIVE_INFINITY;
@@ -417,8 +419,6 @@ public final class HtmlReport {
                 }
                 // each point is a zero-length segment with a round cap: a dot in a few bytes
                 h.append("<path stroke=\"").append(DATA).append("\" stroke-opacity=\"0.4\" stroke-width=\"2.6\" stroke-linecap=\"round\" d=\"");
-                // the points' coordinates are most of the page: written as f() writes them, without a String each
-                byte[] digits = new byte[NumberText.MAX_FIXED_CHARS];
                 for (double[] r : rows) {
                     double vx = r[cols.get(b)];
                     double vy = r[cols.get(a)];
@@ -428,9 +428,9 @@ public final class HtmlReport {
                     double px = x0 + 3 + (vx - lo[b]) / (hi[b] - lo[b]) * (cell - 10);
                     double py = y0 + cell - 7 - (vy - lo[a]) / (hi[a] - lo[a]) * (cell - 10);
                     h.append('M');
-                    NumberText.appendFixed(h, Double.isFinite(px) ? px : 0, 1, digits);
+                    f(h, px, digits);
                     h.append(' ');
-                    NumberText.appendFixed(h, Double.isFinite(py) ? py : 0, 1, digits);
+                    f(h, py, digits);
                     h.append("h0");
                 }
                 h.append("\"/>\n");
@@ -458,6 +458,11 @@ public final class HtmlReport {
 
     private static String f(double v) {
         return NumberText.fixed(Double.isFinite(v) ? v : 0, 1);
+    }
+
+    /** {@link #f(double)} appended to the page through a reused digit buffer. */
+    private static void f(StringBuilder h, double v, byte[] digits) {
+        NumberText.appendFixed(h, Double.isFinite(v) ? v : 0, 1, digits);
     }
 
     private static String num(double v) {
